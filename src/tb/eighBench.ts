@@ -1,0 +1,59 @@
+/**
+ * Timing of HermitianEigensolver.eigenvalues on random dense complex Hermitian matrices (one thread).
+ * Behind the CLI's `bench eigh --sizes … --json`.
+ */
+import { HermitianEigensolver } from './eigh.ts';
+import { fillRandomHermitian, xorshift32 } from './eighRandom.ts';
+
+/** Options of timeEigenvalues. */
+export interface EigenvalueTimingOptions {
+  /** Timed batches per size; the fastest counts. Default 7. */
+  batches?: number;
+  /** Seed of the matrix generator. Default 1. */
+  seed?: number;
+}
+
+/** One timing row: matrix order and the best seconds per matrix. */
+export interface EigenvalueTiming {
+  n: number;
+  secondsPerMatrix: number;
+}
+
+/** Distinct matrices cycled through in a batch, so the timing is not of one lucky spectrum. */
+const MATRICES_PER_SIZE = 8;
+/** Target wall time of one batch (s); long enough for the clock, short enough for the CLI. */
+const BATCH_SECONDS = 0.05;
+
+/** Best-of-batches seconds per eigenvalue-only solve for each size. */
+export function timeEigenvalues(sizes: number[], options: EigenvalueTimingOptions = {}): EigenvalueTiming[] {
+  const batches = options.batches ?? 7;
+  const uniform = xorshift32(options.seed ?? 1);
+  const rows: EigenvalueTiming[] = [];
+  for (const n of sizes) {
+    const solver = new HermitianEigensolver(n);
+    const matrices: { re: Float64Array; im: Float64Array }[] = [];
+    for (let m = 0; m < MATRICES_PER_SIZE; m++) {
+      const re = new Float64Array(n * n);
+      const im = new Float64Array(n * n);
+      fillRandomHermitian(n, uniform, re, im);
+      matrices.push({ re, im });
+    }
+    const out = new Float64Array(n);
+    const run = (count: number): number => {
+      const start = performance.now();
+      for (let i = 0; i < count; i++) {
+        const { re, im } = matrices[i % MATRICES_PER_SIZE];
+        solver.eigenvalues(re, im, out);
+      }
+      return (performance.now() - start) / 1000;
+    };
+    // Warm up (JIT) and calibrate the batch length.
+    let count = 1;
+    while (run(count) < BATCH_SECONDS / 4) count *= 2;
+    count = Math.max(1, Math.ceil((count * BATCH_SECONDS) / Math.max(run(count), 1e-9)));
+    let best = Infinity;
+    for (let b = 0; b < batches; b++) best = Math.min(best, run(count) / count);
+    rows.push({ n, secondsPerMatrix: best });
+  }
+  return rows;
+}

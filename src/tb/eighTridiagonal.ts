@@ -1,0 +1,99 @@
+/**
+ * Eigenvalues (and optionally rotations of a basis) of a real symmetric tridiagonal matrix by the implicit
+ * symmetric QR step with a Wilkinson shift (Golub & Van Loan, Matrix Computations, 4th ed., §8.3.3–8.3.5).
+ *
+ * Layout: `diag[i]` (i = 0…n−1) is T[i][i]; `off[i]` (i = 0…n−2) is T[i][i+1] = T[i+1][i].
+ * Basis rows (eigenvector variant): `rowsRe`/`rowsIm` are n×n row-major; row i holds the current basis vector
+ * that belongs to index i of T, so a rotation in the (i, i+1) plane touches two contiguous rows.
+ * Both arrays are overwritten: `diag` ends with the (unsorted) eigenvalues, `off` with zeros.
+ * Callers pre-scale T so that squares neither overflow nor underflow (entries of order one).
+ */
+
+const EPS = 2 ** -52;
+/** Sweeps allowed per eigenvalue before giving up (LAPACK allows 30 per eigenvalue; common practice). */
+const SWEEPS_PER_VALUE = 30;
+
+/** True when off[i] is negligible beside its diagonal neighbours (relative test, Golub & Van Loan §8.3.5). */
+function negligible(diag: Float64Array, off: Float64Array, i: number): boolean {
+  const b = off[i];
+  return b === 0 || Math.abs(b) <= EPS * (Math.abs(diag[i]) + Math.abs(diag[i + 1]));
+}
+
+/**
+ * One implicit QR step on the unreduced block l…m (Golub & Van Loan Algorithm 8.3.2), chasing the bulge from the top.
+ * When `rowsRe` is given the same rotations are applied to the basis rows.
+ */
+function qrStep(
+  diag: Float64Array, off: Float64Array, l: number, m: number, n: number,
+  rowsRe: Float64Array | null, rowsIm: Float64Array | null,
+): void {
+  // Wilkinson shift: eigenvalue of the trailing 2×2 block closer to its last diagonal entry.
+  const bLast = off[m - 1];
+  const delta = 0.5 * (diag[m - 1] - diag[m]);
+  const root = Math.sqrt(delta * delta + bLast * bLast);
+  const shift = diag[m] - (bLast * bLast) / (delta + (delta >= 0 ? root : -root));
+
+  let x = diag[l] - shift;
+  let z = off[l];
+  for (let k = l; k < m; k++) {
+    const r = Math.sqrt(x * x + z * z);
+    // r = 0 only if the bulge vanished; the identity rotation keeps the block as it is.
+    const c = r === 0 ? 1 : x / r;
+    const s = r === 0 ? 0 : z / r;
+    if (k > l) off[k - 1] = r;
+    // Rotation R = [[c, s], [−s, c]] in the (k, k+1) plane: T ← R T Rᵀ.
+    const ak = diag[k];
+    const ak1 = diag[k + 1];
+    const bk = off[k];
+    const cs = c * s;
+    diag[k] = c * c * ak + 2 * cs * bk + s * s * ak1;
+    diag[k + 1] = s * s * ak - 2 * cs * bk + c * c * ak1;
+    off[k] = cs * (ak1 - ak) + (c * c - s * s) * bk;
+    x = off[k];
+    if (k + 1 < m) {
+      const bNext = off[k + 1];
+      z = s * bNext;
+      off[k + 1] = c * bNext;
+    }
+    if (rowsRe !== null && rowsIm !== null) {
+      const p = k * n;
+      const q = p + n;
+      for (let j = 0; j < n; j++) {
+        const uRe = rowsRe[p + j];
+        const vRe = rowsRe[q + j];
+        rowsRe[p + j] = c * uRe + s * vRe;
+        rowsRe[q + j] = c * vRe - s * uRe;
+        const uIm = rowsIm[p + j];
+        const vIm = rowsIm[q + j];
+        rowsIm[p + j] = c * uIm + s * vIm;
+        rowsIm[q + j] = c * vIm - s * uIm;
+      }
+    }
+  }
+}
+
+/**
+ * Diagonalises the tridiagonal T in place. Returns false when the iteration did not converge
+ * within 30 sweeps per eigenvalue (the caller then reports its NaN sentinel).
+ */
+export function diagonaliseTridiagonal(
+  diag: Float64Array, off: Float64Array, n: number,
+  rowsRe: Float64Array | null = null, rowsIm: Float64Array | null = null,
+): boolean {
+  let sweeps = 0;
+  const maxSweeps = SWEEPS_PER_VALUE * n;
+  let m = n - 1;
+  while (m > 0) {
+    if (negligible(diag, off, m - 1)) {
+      off[m - 1] = 0;
+      m--;
+      continue;
+    }
+    let l = m - 1;
+    while (l > 0 && !negligible(diag, off, l - 1)) l--;
+    if (l > 0) off[l - 1] = 0;
+    if (++sweeps > maxSweeps) return false;
+    qrStep(diag, off, l, m, n, rowsRe, rowsIm);
+  }
+  return true;
+}
