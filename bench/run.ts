@@ -1,0 +1,20 @@
+/**
+ * `npm run bench`: every benchmark in turn, printing figures. Targets are stated beside each figure;
+ * nothing here fails a build — speed lives in figures, not in timed tests.
+ */
+import { benchEigh } from './eigh.ts';
+import { benchEnumerate } from './enumerate.ts';
+import { benchTightBinding } from './tb.ts';
+
+const suites: [string, () => Promise<void>][] = [
+  ['enumeration', benchEnumerate],
+  ['Hermitian eigensolver', benchEigh],
+  ['tight binding', benchTightBinding],
+];
+
+const only = process.argv[2];
+for (const [name, suite] of suites) {
+  if (only && !name.includes(only)) continue;
+  console.log(`\n== ${name}`);
+  await suite();
+}

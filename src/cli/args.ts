@@ -1,0 +1,158 @@
+/**
+ * Command-line flags: one declarative spec per command, one parser, one error style.
+ * Every refusal is a ValidationError `invalid --flag: <value> (<why>)`, so the shell prints one line and exits 2.
+ */
+import { invalid } from '../io/invalid.ts';
+
+/** What a flag accepts. Ranges are inclusive; `a-b` or a single value `a`. */
+export type FlagKind =
+  | { kind: 'switch' }
+  | { kind: 'integer'; min: number; max: number }
+  | { kind: 'number'; min: number; max: number; exclusiveMin?: boolean }
+  | { kind: 'integerRange'; min: number; max: number }
+  | { kind: 'numberRange'; min: number; max: number }
+  | { kind: 'integerList'; min: number; max: number; maxLength: number }
+  | { kind: 'choice'; values: readonly string[] }
+  | { kind: 'text' }
+  | { kind: 'shard' };
+
+export type FlagSpec = FlagKind & { help: string; placeholder?: string };
+
+export interface CommandSpec {
+  name: string;
+  summary: string;
+  /** Positional arguments in order; a trailing `?` in the name marks one optional. */
+  positionals: readonly { name: string; help: string; optional?: boolean }[];
+  flags: Readonly<Record<string, FlagSpec>>;
+}
+
+export type FlagValue = boolean | number | string | [number, number] | number[] | { index: number; count: number };
+
+export interface ParsedArgs {
+  positionals: Record<string, string>;
+  flags: Record<string, FlagValue>;
+}
+
+/** Longest flag value we look at; anything longer is refused before parsing. */
+const MAX_VALUE_LENGTH = 4096;
+
+const INTEGER = /^[+-]?\d+$/;
+const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+function parseInteger(flag: string, text: string, min: number, max: number): number {
+  if (!INTEGER.test(text)) invalid(flag, text, 'not an integer');
+  const value = Number(text);
+  if (!(value >= min && value <= max)) invalid(flag, text, `must be from ${min} to ${max}`);
+  return value;
+}
+
+function parseNumber(flag: string, text: string, min: number, max: number, exclusiveMin = false): number {
+  if (!NUMBER.test(text)) invalid(flag, text, 'not a number');
+  const value = Number(text);
+  if (!Number.isFinite(value)) invalid(flag, text, 'not a finite number');
+  const low = exclusiveMin ? value > min : value >= min;
+  if (!(low && value <= max)) invalid(flag, text, `must be ${exclusiveMin ? 'above' : 'from'} ${min} ${exclusiveMin ? 'and at most' : 'to'} ${max}`);
+  return value;
+}
+
+/** `a-b` or `a`; negative numbers need no special form because the separator is the first `-` after a digit. */
+function splitRange(flag: string, text: string): [string, string] {
+  const match = /^([+-]?[^-]+)(?:-([+-]?[^-]+))?$/.exec(text);
+  if (!match) invalid(flag, text, 'not a range such as 4-12 or 6');
+  return [match[1], match[2] ?? match[1]];
+}
+
+function parseValue(flag: string, spec: FlagSpec, text: string): FlagValue {
+  if (text.length > MAX_VALUE_LENGTH) invalid(flag, text, `longer than ${MAX_VALUE_LENGTH} characters`);
+  switch (spec.kind) {
+    case 'switch':
+      return true;
+    case 'integer':
+      return parseInteger(flag, text, spec.min, spec.max);
+    case 'number':
+      return parseNumber(flag, text, spec.min, spec.max, spec.exclusiveMin);
+    case 'integerRange':
+    case 'numberRange': {
+      const [lowText, highText] = splitRange(flag, text);
+      const parse = spec.kind === 'integerRange' ? parseInteger : parseNumber;
+      const low = parse(flag, lowText, spec.min, spec.max);
+      const high = parse(flag, highText, spec.min, spec.max);
+      if (low > high) invalid(flag, text, 'the range is empty (low end above high end)');
+      return [low, high];
+    }
+    case 'integerList': {
+      const parts = text.split(',');
+      if (parts.length > spec.maxLength) invalid(flag, text, `at most ${spec.maxLength} values`);
+      return parts.map((part) => parseInteger(flag, part.trim(), spec.min, spec.max));
+    }
+    case 'choice':
+      if (!spec.values.includes(text)) invalid(flag, text, `must be one of ${spec.values.join(', ')}`);
+      return text;
+    case 'text':
+      if (text.length === 0) invalid(flag, text, 'empty');
+      return text;
+    case 'shard': {
+      const match = /^(\d+)\/(\d+)$/.exec(text);
+      if (!match) invalid(flag, text, 'not of the form i/n, e.g. 3/8');
+      const index = Number(match[1]);
+      const count = Number(match[2]);
+      if (!(count >= 1 && count <= 100_000)) invalid(flag, text, 'n must be from 1 to 100000');
+      if (!(index >= 1 && index <= count)) invalid(flag, text, 'i must be from 1 to n');
+      return { index, count };
+    }
+  }
+}
+
+/** Parses argv (without the command name) against a command's spec. */
+export function parseArgs(spec: CommandSpec, argv: readonly string[]): ParsedArgs {
+  const flags: Record<string, FlagValue> = {};
+  const given: string[] = [];
+  for (let at = 0; at < argv.length; at++) {
+    const word = argv[at];
+    if (word.startsWith('--')) {
+      const equals = word.indexOf('=');
+      const name = equals < 0 ? word.slice(2) : word.slice(2, equals);
+      const flag = `--${name}`;
+      const flagSpec = Object.hasOwn(spec.flags, name) ? spec.flags[name] : undefined;
+      if (!flagSpec) {
+        const known = Object.keys(spec.flags).map((f) => `--${f}`).join(', ');
+        invalid(flag, word, `unknown option for ${spec.name}; known: ${known}`);
+      }
+      if (Object.hasOwn(flags, name)) invalid(flag, word, 'given twice');
+      let text: string;
+      if (flagSpec.kind === 'switch') {
+        if (equals >= 0) invalid(flag, word, 'takes no value');
+        text = '';
+      } else if (equals >= 0) {
+        text = word.slice(equals + 1);
+      } else {
+        if (at + 1 >= argv.length) invalid(flag, undefined, `needs a value${flagSpec.placeholder ? ` (${flagSpec.placeholder})` : ''}`);
+        text = argv[++at];
+      }
+      flags[name] = parseValue(flag, flagSpec, text);
+    } else {
+      given.push(word);
+    }
+  }
+  const positionals: Record<string, string> = {};
+  const slots = spec.positionals;
+  if (given.length > slots.length) {
+    invalid(slots.length ? 'arguments' : 'argument', given[slots.length], `${spec.name} takes ${slots.length ? slots.map((s) => s.name).join(' ') : 'no positional arguments'}`);
+  }
+  slots.forEach((slot, index) => {
+    if (index < given.length) positionals[slot.name] = given[index];
+    else if (!slot.optional) invalid(slot.name, undefined, `${spec.name} needs ${slot.name}: ${slot.help}`);
+  });
+  return { positionals, flags };
+}
+
+/** Help text for one command, generated from its spec. */
+export function commandHelp(spec: CommandSpec): string {
+  const lines = [`lacuna ${spec.name} ${spec.positionals.map((p) => (p.optional ? `[${p.name}]` : p.name)).join(' ')}`.trimEnd(), `  ${spec.summary}`];
+  for (const p of spec.positionals) lines.push(`  ${p.name.padEnd(22)} ${p.help}`);
+  for (const [name, flag] of Object.entries(spec.flags)) {
+    const left = `--${name}${flag.placeholder ? ` ${flag.placeholder}` : ''}`;
+    lines.push(`  ${left.padEnd(22)} ${flag.help}`);
+  }
+  return lines.join('\n');
+}

@@ -1,0 +1,103 @@
+/**
+ * `lacuna bands`: band energies and σ weights on an automatic k-path or on given k-points (DESIGN.md contract).
+ */
+import { invalid } from '../../io/invalid.ts';
+import { parseKpointsText } from '../../io/kpointsFile.ts';
+import { autoPath, computeBands, TightBindingModel, type BandResult, type KPath } from '../../tb/index.ts';
+import { parseArgs, type CommandSpec } from '../args.ts';
+import { writeNamedFile, type Command, type CliIo } from '../io.ts';
+import { resolveParameters } from '../parameters.ts';
+import { ProgressLine } from '../progress.ts';
+import { resolveSheet } from '../sheetArgument.ts';
+
+const spec: CommandSpec = {
+  name: 'bands',
+  summary: 'tight-binding bands of a sheet with the σ share of every state',
+  positionals: [{ name: 'SHEET', help: 'a preset name, a sheet file, or sheet JSON text' }],
+  flags: {
+    params: { kind: 'text', placeholder: 'FILE|NAME', help: 'parameter set: a preset name or a parameter file (default harrison1980)' },
+    kpoints: { kind: 'text', placeholder: 'FILE', help: 'k-points file {"kpoints": [[kx, ky]]}, Cartesian Å⁻¹' },
+    path: { kind: 'choice', values: ['auto'], placeholder: 'auto', help: 'the automatic path through the special points of the reduced cell' },
+    points: { kind: 'integer', min: 2, max: 100_000, placeholder: 'P', help: 'points on the automatic path (default 300)' },
+    csv: { kind: 'text', placeholder: 'FILE', help: 'also write the bands as CSV' },
+    json: { kind: 'switch', help: 'one JSON document on stdout' },
+  },
+};
+
+/** Rows of a k-major Float64Array, rounded only by JSON's shortest round-trip printing. */
+function rows(values: Float64Array, count: number, width: number): number[][] {
+  const out: number[][] = [];
+  for (let k = 0; k < count; k++) out.push(Array.from(values.subarray(k * width, (k + 1) * width)));
+  return out;
+}
+
+export function bandsCsv(kpoints: Float64Array, result: BandResult, path?: KPath): string {
+  const header = ['k_index', 'kx', 'ky', ...(path ? ['distance'] : [])];
+  for (let b = 0; b < result.bands; b++) header.push(`e${b + 1}`);
+  for (let b = 0; b < result.bands; b++) header.push(`sigma${b + 1}`);
+  const lines = [header.join(',')];
+  for (let k = 0; k < result.count; k++) {
+    const cells: (number | string)[] = [k, kpoints[2 * k], kpoints[2 * k + 1]];
+    if (path) cells.push(path.distance[k]);
+    for (let b = 0; b < result.bands; b++) cells.push(result.energies[k * result.bands + b]);
+    for (let b = 0; b < result.bands; b++) cells.push(result.sigmaWeight[k * result.bands + b]);
+    lines.push(cells.join(','));
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+function run(argv: readonly string[], io: CliIo): number {
+  const { positionals, flags } = parseArgs(spec, argv);
+  if (flags.kpoints !== undefined && flags.path !== undefined) invalid('--kpoints', flags.kpoints, 'give either --kpoints or --path auto, not both');
+  if (flags.kpoints === undefined && flags.path === undefined) invalid('--path', undefined, 'give --path auto or --kpoints FILE');
+  if (flags.points !== undefined && flags.path === undefined) invalid('--points', flags.points, 'only with --path auto');
+  const sheet = resolveSheet(positionals.SHEET, io);
+  const params = resolveParameters(flags.params as string | undefined, io);
+  const model = new TightBindingModel(sheet.sheet, params);
+
+  let kpoints: Float64Array;
+  let path: KPath | undefined;
+  if (flags.path === 'auto') {
+    path = autoPath(sheet.sheet.cell, (flags.points as number | undefined) ?? 300);
+    kpoints = path.kpoints;
+  } else {
+    const file = flags.kpoints as string;
+    let text: string;
+    try {
+      text = io.readText(file);
+    } catch {
+      invalid('--kpoints', file, 'cannot read the file');
+    }
+    kpoints = parseKpointsText(text, file);
+  }
+
+  const progress = new ProgressLine(io.err, 'k-points');
+  const result = computeBands(model, kpoints, { onProgress: (done, total) => progress.update(done, done / total) });
+  progress.done();
+
+  if (flags.csv !== undefined) writeNamedFile(io, '--csv', flags.csv as string, bandsCsv(kpoints, result, path));
+  const count = kpoints.length / 2;
+  if (flags.json) {
+    const document: Record<string, unknown> = {
+      kpoints: rows(kpoints, count, 2),
+      energies: rows(result.energies, count, result.bands),
+      sigma_weight: rows(result.sigmaWeight, count, result.bands),
+    };
+    if (path) document.path = { labels: path.labels, distance: Array.from(path.distance), cell_type: path.cellType };
+    document.parameters = params.name;
+    document.sheet = sheet.label;
+    io.out(`${JSON.stringify(document)}\n`);
+  } else {
+    io.out(`${sheet.label}: ${model.atoms} atoms, ${result.bands} bands at ${count} k-points, parameters ${params.name}\n`);
+    let low = Infinity, high = -Infinity;
+    for (const e of result.energies) {
+      if (e < low) low = e;
+      if (e > high) high = e;
+    }
+    io.out(`energies from ${low.toFixed(3)} to ${high.toFixed(3)} eV${path ? `; path ${path.labels.map((l) => l.label).join('–')} (${path.cellType} cell)` : ''}\n`);
+    if (flags.csv !== undefined) io.out(`wrote ${flags.csv}\n`);
+  }
+  return 0;
+}
+
+export const bandsCommand: Command = { spec, run };

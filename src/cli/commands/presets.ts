@@ -1,0 +1,46 @@
+/**
+ * `lacuna presets`: the named sheets and parameter sets with their sources.
+ */
+import { holeDensity, hnfRows, patternToSheet } from '../../lattice/pattern.ts';
+import { SHEET_PRESETS } from '../../lattice/presets.ts';
+import { PARAMETER_PRESETS } from '../../tb/params.ts';
+import { parseArgs, type CommandSpec } from '../args.ts';
+import type { Command, CliIo } from '../io.ts';
+
+const spec: CommandSpec = {
+  name: 'presets',
+  summary: 'list the named sheets and parameter sets, with their sources',
+  positionals: [],
+  flags: { json: { kind: 'switch', help: 'one JSON document on stdout' } },
+};
+
+function run(argv: readonly string[], io: CliIo): number {
+  const { flags } = parseArgs(spec, argv);
+  const sheets = SHEET_PRESETS.map((p) => ({
+    name: p.name,
+    title: p.title,
+    eta: holeDensity(p.pattern),
+    atoms: patternToSheet(p.pattern).atoms.length,
+    bond: p.pattern.bond,
+    supercell: hnfRows(p.pattern.supercell),
+    vacancies: p.pattern.vacancies,
+    source: p.source,
+    bond_source: p.bondSource,
+  }));
+  const params = PARAMETER_PRESETS.map((p) => ({ name: p.name, source: p.source }));
+  if (flags.json) {
+    io.out(`${JSON.stringify({ sheets, parameters: params })}\n`);
+    return 0;
+  }
+  const lines = ['sheets:'];
+  for (const s of sheets) {
+    lines.push(`  ${s.name.padEnd(10)} η = ${s.eta.toFixed(4)}  ${s.atoms} atoms/cell  d = ${s.bond} Å  ${s.title}`);
+    lines.push(`  ${''.padEnd(10)} ${s.source}`);
+  }
+  lines.push('parameter sets:');
+  for (const p of params) lines.push(`  ${p.name.padEnd(14)} ${p.source}`);
+  io.out(`${lines.join('\n')}\n`);
+  return 0;
+}
+
+export const presetsCommand: Command = { spec, run };

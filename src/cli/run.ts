@@ -1,0 +1,54 @@
+/**
+ * The command-line shell: dispatch, help, and the one rule for errors — a ValidationError is one line on stderr
+ * and exit code 2; anything else is an internal error, exit 1, with the trace only when LACUNA_DEBUG is set.
+ */
+import { ValidationError, invalid } from '../io/invalid.ts';
+import { commandHelp } from './args.ts';
+import { bandsCommand } from './commands/bands.ts';
+import { benchCommand } from './commands/bench.ts';
+import { enumerateCommand } from './commands/enumerate.ts';
+import { exportCommand } from './commands/export.ts';
+import { fillCommand } from './commands/fill.ts';
+import { presetsCommand } from './commands/presets.ts';
+import type { CliIo, Command } from './io.ts';
+
+export const COMMANDS: readonly Command[] = [enumerateCommand, bandsCommand, fillCommand, exportCommand, presetsCommand, benchCommand];
+
+function overview(): string {
+  const lines = ['lacuna — vacancy patterns, bands and electron counting for boron sheets', '', 'usage: lacuna <command> [options]   (lacuna help <command> for its options)', ''];
+  for (const command of COMMANDS) lines.push(`  ${command.spec.name.padEnd(10)} ${command.spec.summary}`);
+  return `${lines.join('\n')}\n`;
+}
+
+export async function runCli(argv: readonly string[], io: CliIo, debug = false): Promise<number> {
+  try {
+    const [name, ...rest] = argv;
+    if (name === undefined || name === 'help' || name === '--help' || name === '-h') {
+      const topic = rest[0];
+      if (name === 'help' && topic !== undefined) {
+        const command = COMMANDS.find((c) => c.spec.name === topic);
+        if (!command) invalid('command', topic, `unknown; commands: ${COMMANDS.map((c) => c.spec.name).join(', ')}`);
+        io.out(`${commandHelp(command.spec)}\n`);
+      } else {
+        io.out(overview());
+      }
+      return 0;
+    }
+    const command = COMMANDS.find((c) => c.spec.name === name);
+    if (!command) invalid('command', name, `unknown; commands: ${COMMANDS.map((c) => c.spec.name).join(', ')}`);
+    if (rest.includes('--help')) {
+      io.out(`${commandHelp(command.spec)}\n`);
+      return 0;
+    }
+    return await command.run(rest, io);
+  } catch (error) {
+    if (error instanceof ValidationError) {
+      io.err.write(`${error.message}\n`);
+      return 2;
+    }
+    const message = error instanceof Error ? error.message : String(error);
+    io.err.write(`lacuna: internal error: ${message.split('\n')[0]} (please report it; set LACUNA_DEBUG=1 for the trace)\n`);
+    if (debug && error instanceof Error && error.stack) io.err.write(`${error.stack}\n`);
+    return 1;
+  }
+}

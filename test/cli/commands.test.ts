@@ -1,0 +1,104 @@
+import { describe, expect, it } from 'vitest';
+import { runCli } from '../../src/cli/run.ts';
+import { fakeIo } from './fakeIo.ts';
+
+async function cli(argv: string[], files: Record<string, string> = {}) {
+  const io = fakeIo(files);
+  const code = await runCli(argv, io);
+  return { code, stdout: io.stdout(), stderr: io.stderr(), files: io.files };
+}
+
+/** Every error path: exit 2, exactly one line on stderr in the project's error form, nothing on stdout. */
+async function refused(argv: string[], pattern: RegExp, files: Record<string, string> = {}) {
+  const result = await cli(argv, files);
+  expect(result.code).toBe(2);
+  expect(result.stdout).toBe('');
+  expect(result.stderr).toMatch(/^invalid [^\n]+\n$/);
+  expect(result.stderr).toMatch(pattern);
+}
+
+describe('lacuna enumerate', () => {
+  it('--json prints the contract document: counts and structures with both sheet forms', async () => {
+    const { code, stdout } = await cli(['enumerate', '--sites', '1-9', '--holes', '1', '--isolated', '--json']);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    expect(document.counts).toContainEqual({ sites: 9, holes: 1, structures: expect.any(Number) });
+    const alpha = document.structures.find((s: { phase?: string }) => s.phase === 'alpha');
+    // α sheet: 3×3 cell with one hole, η = 1/9, 8 atoms (Tang & Ismail-Beigi, PRL 99, 115501 (2007)).
+    expect(alpha).toMatchObject({ sites: 9, holes: 1, supercell: [[3, 0], [0, 3]], vacancies: [[0, 0]] });
+    expect(alpha.eta).toBeCloseTo(1 / 9, 12);
+    expect(alpha.atoms).toHaveLength(8);
+    expect(alpha.cell[0][0]).toBeCloseTo(3 * 1.69, 12);
+    for (const s of document.structures) expect(Object.keys(s)).toEqual(expect.arrayContaining(['sites', 'holes', 'eta', 'supercell', 'vacancies', 'cell', 'atoms']));
+  });
+
+  it('--counts-only agrees with the listed count', async () => {
+    const listed = JSON.parse((await cli(['enumerate', '--sites', '1-8', '--holes', '0-8', '--json'])).stdout);
+    const counted = JSON.parse((await cli(['enumerate', '--sites', '1-8', '--holes', '0-8', '--counts-only', '--json'])).stdout);
+    expect(counted.counts).toEqual(listed.counts);
+    const total = listed.counts.reduce((sum: number, row: { structures: number }) => sum + row.structures, 0);
+    expect(listed.structures).toHaveLength(total);
+  });
+
+  it('refuses missing and malformed flags with the field named', async () => {
+    await refused(['enumerate', '--holes', '1'], /^invalid --sites: missing \(required/);
+    await refused(['enumerate', '--sites', '0-4', '--holes', '1'], /^invalid --sites: "0-4" \(must be from 1 to 64\)/);
+    await refused(['enumerate', '--sites', '4', '--holes', 'x'], /^invalid --holes: "x"/);
+    await refused(['frobnicate'], /^invalid command: "frobnicate" \(unknown; commands: enumerate/);
+  });
+});
+
+describe('lacuna bands / fill / export', () => {
+  it('bands --path auto --json has kpoints, energies, sigma_weight and the path', async () => {
+    const { code, stdout } = await cli(['bands', 'honeycomb', '--path', 'auto', '--points', '40', '--json']);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    expect(document.kpoints).toHaveLength(40);
+    expect(document.energies).toHaveLength(40);
+    expect(document.energies[0]).toHaveLength(8); // 2 atoms × (s, px, py, pz)
+    expect(document.sigma_weight[0]).toHaveLength(8);
+    expect(document.path.labels.map((l: { label: string }) => l.label)).toEqual(['Γ', 'M', 'K', 'Γ']);
+    expect(document.path.distance).toHaveLength(40);
+    expect(document.parameters).toBe('harrison1980');
+    for (const row of document.energies) for (let b = 1; b < row.length; b++) expect(row[b]).toBeGreaterThanOrEqual(row[b - 1]);
+  });
+
+  it('bands --kpoints reads a k-points file and --csv writes the bands', async () => {
+    const files = { 'k.json': JSON.stringify({ kpoints: [[0, 0], [0.5, 0.1]] }) };
+    const { code, stdout, files: written } = await cli(['bands', 'delta6', '--kpoints', 'k.json', '--csv', 'out.csv', '--json'], files);
+    expect(code).toBe(0);
+    expect(JSON.parse(stdout).kpoints).toEqual([[0, 0], [0.5, 0.1]]);
+    expect(String(written.get('out.csv')).split('\n')[0]).toBe('k_index,kx,ky,e1,e2,e3,e4,sigma1,sigma2,sigma3,sigma4');
+  });
+
+  it('fill --json has every contract field', async () => {
+    const { code, stdout } = await cli(['fill', 'alpha', '--mesh', '12', '--json']);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    for (const key of ['fermi', 'electrons_per_atom', 'sigma_electrons_per_atom', 'pi_electrons_per_atom', 'band_energy_per_atom']) {
+      expect(Number.isFinite(document[key])).toBe(true);
+    }
+    expect(document.electrons_per_atom).toBeCloseTo(3, 9); // neutral boron: 3 valence electrons (common practice)
+    expect(document.sigma_electrons_per_atom + document.pi_electrons_per_atom).toBeCloseTo(3, 9);
+  });
+
+  it('export writes a CIF with the IUCr core names', async () => {
+    const { code, stdout } = await cli(['export', 'honeycomb', '--format', 'cif']);
+    expect(code).toBe(0);
+    for (const name of ['_cell_length_a', '_cell_length_b', '_cell_length_c', '_cell_angle_gamma', '_atom_site_fract_x', '_atom_site_fract_y', '_atom_site_fract_z']) {
+      expect(stdout).toContain(name);
+    }
+  });
+
+  it('refuses bad sheets, parameter sets, k-points and output paths with the field named', async () => {
+    await refused(['fill', 'nosuch'], /^invalid SHEET: "nosuch" \(no such preset or file; presets: delta6, alpha/);
+    await refused(['fill', 'bad.json'], /^invalid /, { 'bad.json': '{"cell": [[1, 0], [2, 0]], "atoms": [[0, 0]]}' });
+    await refused(['fill', 'alpha', '--params', 'nosuch'], /^invalid --params: "nosuch" \(no such parameter set or file/);
+    await refused(['fill', 'alpha', '--mesh', '0'], /^invalid --mesh: "0"/);
+    await refused(['fill', 'alpha', '--doping', '-4'], /^invalid --doping: "-4"/);
+    await refused(['bands', 'alpha'], /^invalid --path: missing/);
+    await refused(['bands', 'alpha', '--kpoints', 'k.json'], /^invalid kpoints\[0\]\[1\]: "x"/, { 'k.json': '{"kpoints": [[0, "x"]]}' });
+    await refused(['bands', 'alpha', '--path', 'auto', '--csv', '/readonly/x.csv'], /^invalid --csv: "\/readonly\/x.csv" \(cannot write the file: EACCES\)/);
+    await refused(['export', 'alpha', '--format', 'pdb'], /^invalid --format: "pdb" \(must be one of cif, xyz, json\)/);
+  });
+});
