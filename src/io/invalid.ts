@@ -36,3 +36,12 @@ export function show(value: unknown): string {
 export function invalid(field: string, value: unknown, why: string): never {
   throw new ValidationError(field, show(value), why);
 }
+
+/**
+ * The field path of `key` inside `parent` (empty for the top level): `parent.key` for plain names,
+ * `parent["odd key"]` for anything else, so that a path never contains blanks or is empty.
+ */
+export function fieldPath(parent: string, key: string): string {
+  if (/^[A-Za-z_][\w-]*$/.test(key)) return parent ? `${parent}.${key}` : key;
+  return `${parent}[${JSON.stringify(key.length > 40 ? `${key.slice(0, 37)}...` : key)}]`;
+}

@@ -1,7 +1,7 @@
 /**
  * k-points file (DESIGN.md, `bands --kpoints`): `{ "kpoints": [[kx, ky], …] }` in Cartesian Å⁻¹.
  */
-import { invalid } from './invalid.ts';
+import { fieldPath, invalid } from './invalid.ts';
 
 /** Most k-points one file may hold. */
 export const MAX_KPOINTS = 1_000_000;
@@ -21,7 +21,7 @@ export function parseKpointsText(text: string, origin = 'kpoints'): Float64Array
 
 export function parseKpointsObject(value: unknown): Float64Array {
   if (typeof value !== 'object' || value === null || Array.isArray(value)) invalid('kpoints file', value, 'must be an object {"kpoints": [[kx, ky]]}');
-  for (const key of Object.keys(value)) if (key !== 'kpoints') invalid(key, (value as Record<string, unknown>)[key], 'unknown field; a k-points file has only "kpoints"');
+  for (const key of Object.keys(value)) if (key !== 'kpoints') invalid(fieldPath('', key), (value as Record<string, unknown>)[key], 'unknown field; a k-points file has only "kpoints"');
   const list = (value as { kpoints?: unknown }).kpoints;
   if (!Array.isArray(list)) invalid('kpoints', list, 'must be a list of [kx, ky]');
   if (list.length === 0) invalid('kpoints', list, 'empty');
