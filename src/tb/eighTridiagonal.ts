@@ -73,6 +73,66 @@ function qrStep(
 }
 
 /**
+ * Eigenvalues only, by the root-free QR step of Pal, Walker and Kahan (Parlett, The Symmetric Eigenvalue Problem,
+ * 1998, §8.15): it carries the squared off-diagonal, so a rotation costs divisions but no square root.
+ * `offSquared[i]` is T[i][i+1]²; both arrays are overwritten. Returns false when it did not converge.
+ */
+export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: Float64Array, n: number): boolean {
+  const eps2 = EPS * EPS;
+  let sweeps = 0;
+  const maxSweeps = SWEEPS_PER_VALUE * n;
+  let m = n - 1;
+  while (m > 0) {
+    // Deflation test b² ≤ ε²·(|a_i| + |a_{i+1}|)², the square of the test in `negligible`.
+    let size = Math.abs(diag[m - 1]) + Math.abs(diag[m]);
+    if (offSquared[m - 1] <= eps2 * size * size) {
+      offSquared[m - 1] = 0;
+      m--;
+      continue;
+    }
+    let l = m - 1;
+    while (l > 0) {
+      size = Math.abs(diag[l - 1]) + Math.abs(diag[l]);
+      if (offSquared[l - 1] <= eps2 * size * size) break;
+      l--;
+    }
+    if (l > 0) offSquared[l - 1] = 0;
+    if (++sweeps > maxSweeps) return false;
+    // Wilkinson shift from the trailing 2×2 block, as in qrStep.
+    const bb = offSquared[m - 1];
+    const delta = 0.5 * (diag[m - 1] - diag[m]);
+    const root = Math.sqrt(delta * delta + bb);
+    const shift = diag[m] - bb / (delta + (delta >= 0 ? root : -root));
+    // γ-form of the shifted QR step (Parlett §8.15): γ is the running diagonal entry of the rotated T − σ,
+    // p = γ²/c² the square of the entry the next rotation eliminates against. Written with
+    // ν = r·γ_next = p·(α − σ) − b²·γ so that the divisions 1/r and 1/(r·p) do not wait on each other.
+    let c = 1;
+    let s = 0;
+    let gamma = diag[l] - shift;
+    let p = gamma * gamma;
+    for (let i = l; i < m; i++) {
+      const b2 = offSquared[i];
+      const r = p + b2;
+      const inverse = 1 / r;
+      if (i > l) offSquared[i - 1] = s * r;
+      const alpha = diag[i + 1];
+      const nu = p * (alpha - shift) - b2 * gamma;
+      const nextGamma = nu * inverse;
+      diag[i] = gamma + (alpha - nextGamma);
+      // p_next = γ_next²/c_next = ν²/(r·p); when p = 0 (c = 0) the limit is c_previous·b² (Parlett §8.15).
+      const nextP = p !== 0 ? (nu * nu) / (r * p) : c * b2;
+      c = p * inverse;
+      s = b2 * inverse;
+      gamma = nextGamma;
+      p = nextP;
+    }
+    offSquared[m - 1] = s * p;
+    diag[m] = shift + gamma;
+  }
+  return true;
+}
+
+/**
  * Diagonalises the tridiagonal T in place. Returns false when the iteration did not converge
  * within 30 sweeps per eigenvalue (the caller then reports its NaN sentinel).
  */
