@@ -19,6 +19,9 @@ import { ORBITALS, slaterKosterBlock } from './slaterKoster.ts';
 /** Which part of H(k): all 4n orbitals, the σ block (s, px, py: 3n) or the π block (pz: n). */
 export type HamiltonianBlock = 'full' | 'sigma' | 'pi';
 
+/** Magnitude (eV) below which an off-diagonal entry of H(k) is set to 0. */
+export const TINY_ENTRY = 1e-150;
+
 const BLOCK_WIDTH: Record<HamiltonianBlock, number> = { full: 4, sigma: 3, pi: 1 };
 const BLOCK_FIRST: Record<HamiltonianBlock, number> = { full: 0, sigma: 0, pi: 3 };
 
@@ -72,7 +75,8 @@ export class TightBindingModel {
   /**
    * Writes H(k) (or one of its planar blocks) into re, im (length ≥ size², overwritten), k = (kx, ky) Å⁻¹.
    * The result is exactly Hermitian (averaged with its conjugate transpose, which only removes rounding).
-   * Allocates nothing.
+   * Entries below TINY_ENTRY in magnitude (far below rounding of eV-sized entries) are set to 0: squares of
+   * such entries underflow, which costs the eigensolver accuracy. Allocates nothing.
    */
   hamiltonian(kx: number, ky: number, block: HamiltonianBlock, re: Float64Array, im: Float64Array): void {
     const width = BLOCK_WIDTH[block];
@@ -110,8 +114,10 @@ export class TightBindingModel {
       for (let col = r + 1; col < size; col++) {
         const upper = r * size + col;
         const lower = col * size + r;
-        const mre = 0.5 * (re[upper] + re[lower]);
-        const mim = 0.5 * (im[upper] - im[lower]);
+        let mre = 0.5 * (re[upper] + re[lower]);
+        let mim = 0.5 * (im[upper] - im[lower]);
+        if (Math.abs(mre) < TINY_ENTRY) mre = 0;
+        if (Math.abs(mim) < TINY_ENTRY) mim = 0;
         re[upper] = mre;
         re[lower] = mre;
         im[upper] = mim;
