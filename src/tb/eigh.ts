@@ -17,8 +17,8 @@ import { diagonaliseTridiagonal, tridiagonalEigenvaluesRootFree } from './eighTr
  * Eigensolver for n×n complex Hermitian matrices with all workspaces preallocated for one n;
  * reuse one object across k-points — calls allocate nothing.
  * Inputs must hold the full matrix (both triangles, consistent); only the lower triangle is read and
- * nothing is modified. If the QR iteration fails to converge (pathological input such as NaN or infinite
- * entries) every output is NaN — the documented sentinel; the solver never throws.
+ * nothing is modified. If an entry is infinite or NaN, or the QR iteration fails to converge (30 sweeps per
+ * eigenvalue), every output is NaN — the documented sentinel; the solver never throws.
  */
 export class HermitianEigensolver {
   /** Matrix order. */
@@ -50,6 +50,7 @@ export class HermitianEigensolver {
     if (n === 0) return out;
     const reduction = this.reduction;
     const scale = reduction.reduce(re, im);
+    if (Number.isNaN(scale)) return out.fill(NaN, 0, n);
     const diag = this.diag;
     const offSquared = this.off;
     diag.set(reduction.diag);
@@ -59,10 +60,7 @@ export class HermitianEigensolver {
       offSquared[k] = a * a + b * b;
     }
     offSquared[n - 1] = 0;
-    if (!tridiagonalEigenvaluesRootFree(diag, offSquared, n)) {
-      out.fill(NaN, 0, n);
-      return out;
-    }
+    if (!tridiagonalEigenvaluesRootFree(diag, offSquared, n)) return out.fill(NaN, 0, n);
     // Insertion sort: n is small and deflated blocks come out partly ordered.
     for (let i = 0; i < n; i++) {
       const v = diag[i] * scale;
@@ -84,14 +82,18 @@ export class HermitianEigensolver {
     if (n === 0) return;
     const reduction = this.reduction;
     const scale = reduction.reduce(re, im);
-    this.diag.set(reduction.diag);
-    this.phases();
-    // The reduction's working copy is free now: it holds Q, then the basis rows (Q·D)ᵀ.
     const rowsRe = reduction.workRe;
     const rowsIm = reduction.workIm;
-    this.accumulateQ(rowsRe, rowsIm);
-    this.basisRows(rowsRe, rowsIm);
-    if (!diagonaliseTridiagonal(this.diag, this.off, n, rowsRe, rowsIm)) {
+    let converged = !Number.isNaN(scale);
+    if (converged) {
+      this.diag.set(reduction.diag);
+      this.phases();
+      // The reduction's working copy is free now: it holds Q, then the basis rows (Q·D)ᵀ.
+      this.accumulateQ(rowsRe, rowsIm);
+      this.basisRows(rowsRe, rowsIm);
+      converged = diagonaliseTridiagonal(this.diag, this.off, n, rowsRe, rowsIm);
+    }
+    if (!converged) {
       values.fill(NaN, 0, n);
       vecRe.fill(NaN, 0, n * n);
       vecIm.fill(NaN, 0, n * n);
@@ -131,14 +133,20 @@ export class HermitianEigensolver {
     for (let k = 0; k + 1 < n; k++) {
       const a = subRe[k];
       const b = subIm[k];
-      const size = Math.sqrt(a * a + b * b);
-      this.off[k] = size;
-      if (size > 0) {
-        const cRe = a / size;
-        const cIm = b / size;
+      // |e_k| and e_k/|e_k| without squaring a possibly tiny e_k (the phase must keep modulus 1).
+      const big = Math.max(Math.abs(a), Math.abs(b));
+      if (big > 0) {
+        const ratioRe = a / big;
+        const ratioIm = b / big;
+        const h = Math.sqrt(ratioRe * ratioRe + ratioIm * ratioIm);
+        this.off[k] = big * h;
+        const cRe = ratioRe / h;
+        const cIm = ratioIm / h;
         const nextRe = dRe * cRe - dIm * cIm;
         dIm = dRe * cIm + dIm * cRe;
         dRe = nextRe;
+      } else {
+        this.off[k] = 0;
       }
       this.phaseRe[k + 1] = dRe;
       this.phaseIm[k + 1] = dIm;

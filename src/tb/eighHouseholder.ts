@@ -1,6 +1,6 @@
 /**
  * Householder reduction of a complex Hermitian matrix to tridiagonal form, H = Q·T·Qᴴ
- * (Golub & Van Loan, Matrix Computations, 4th ed., Algorithm 8.3.1, in complex form).
+ * (Golub & Van Loan, Matrix Computations, 4th ed., §8.3, written here in complex form).
  *
  * Layout: the working copy `workRe`/`workIm` is n×n row-major and only its lower triangle (c ≤ r) is read or
  * written; element (r, c) is workRe[r*n + c] + i·workIm[r*n + c]. Reflector k is P_k = I − τ_k·u_k·u_kᴴ
@@ -12,9 +12,8 @@
  * (the updated column k+1 is formed first, so u_{k+1} is known before the pass).
  */
 
-/** Beyond these magnitudes squares of entries would over/underflow; the working copy is rescaled by 2^k. */
-const SAFE_LARGE = 2 ** 400;
-const SAFE_SMALL = 2 ** -400;
+/** Below this, a sum of squares may have lost precision to underflow (2^−1022/ε ≈ 2^−970); rescale first. */
+const SQUARES_UNSAFE = 2 ** -900;
 
 /** Workspaces and results of the reduction for one matrix order n (allocated once, reused). */
 export class HermitianTridiagonaliser {
@@ -57,11 +56,13 @@ export class HermitianTridiagonaliser {
 
   /**
    * Reduces the Hermitian matrix re + i·im (split, row-major, lower triangle read; inputs untouched).
-   * Returns the power of two by which T's entries must be multiplied to undo the rescaling (1 normally).
+   * Returns the power of two by which T's entries must be multiplied to undo the rescaling, or NaN (and does
+   * nothing more) when an entry is infinite or NaN.
    */
   reduce(re: Float64Array, im: Float64Array): number {
     const n = this.n;
     const scale = this.copyLower(re, im);
+    if (Number.isNaN(scale)) return scale;
     const wRe = this.workRe;
     const tau = this.tau;
     this.diag[0] = wRe[0];
@@ -94,31 +95,38 @@ export class HermitianTridiagonaliser {
     return scale;
   }
 
-  /** Copies the lower triangle into the workspace, rescaled by a power of two if needed; returns the factor to undo. */
+  /**
+   * Copies the lower triangle into the workspace scaled by the power of two 2^−e that brings its largest entry
+   * near 1 (exact, so c·H still gives c·λ exactly for c = 2^j); returns 2^e, the factor to undo, or NaN
+   * for a matrix with an infinite or NaN entry.
+   * With entries of order one, squares over/underflow only for entries below 2^−500, which the kernels treat
+   * as negligible or rescale locally.
+   */
   private copyLower(re: Float64Array, im: Float64Array): number {
     const n = this.n;
     const wRe = this.workRe;
     const wIm = this.workIm;
     let largest = 0;
+    // size − size is 0 for finite entries and NaN for ±∞ or NaN, so `finite` stays 0 only for a finite matrix.
+    let finite = 0;
     for (let r = 0; r < n; r++) {
       const row = r * n;
       for (let c = 0; c <= r; c++) {
-        const a = re[row + c];
-        const b = im[row + c];
-        wRe[row + c] = a;
-        wIm[row + c] = b;
-        const size = Math.abs(a) + Math.abs(b);
+        const size = Math.max(Math.abs(re[row + c]), Math.abs(im[row + c]));
+        finite += size - size;
         if (size > largest) largest = size;
       }
     }
-    if ((largest > SAFE_SMALL && largest < SAFE_LARGE) || largest === 0 || !Number.isFinite(largest)) return 1;
-    const exponent = Math.round(Math.log2(largest));
-    const factor = 2 ** -exponent;
+    if (finite !== 0) return NaN;
+    const exponent = largest > 0 ? Math.round(Math.log2(largest)) : 0;
+    // 2^−e overflows for subnormal inputs (e < −1023): apply it as two exact powers of two.
+    const firstFactor = 2 ** Math.min(-exponent, 1000);
+    const secondFactor = 2 ** (-exponent - Math.min(-exponent, 1000));
     for (let r = 0; r < n; r++) {
       const row = r * n;
       for (let c = 0; c <= r; c++) {
-        wRe[row + c] *= factor;
-        wIm[row + c] *= factor;
+        wRe[row + c] = re[row + c] * firstFactor * secondFactor;
+        wIm[row + c] = im[row + c] * firstFactor * secondFactor;
       }
     }
     return 2 ** exponent;
@@ -134,35 +142,65 @@ export class HermitianTridiagonaliser {
     const wRe = this.workRe;
     const wIm = this.workIm;
     const first = k + 1;
-    const alphaRe = wRe[first * n + k];
-    const alphaIm = wIm[first * n + k];
+    let alphaRe = wRe[first * n + k];
+    let alphaIm = wIm[first * n + k];
     let tail = 0;
     for (let r = first + 1; r < n; r++) {
       const a = wRe[r * n + k];
       const b = wIm[r * n + k];
       tail += a * a + b * b;
     }
+    // u and τ may be computed from x/s for any s > 0 (P is unchanged); s is a power of two (exact), ≠ 1 only
+    // for tiny columns whose squares lose precision.
+    let s = 1;
+    let inverse = 1;
+    if (tail + alphaRe * alphaRe + alphaIm * alphaIm < SQUARES_UNSAFE) {
+      let largest = 0;
+      for (let r = first; r < n; r++) largest = Math.max(largest, Math.abs(wRe[r * n + k]), Math.abs(wIm[r * n + k]));
+      if (largest > 0) {
+        s = 2 ** Math.max(-1000, Math.round(Math.log2(largest)));
+        inverse = 1 / s;
+      }
+      alphaRe *= inverse;
+      alphaIm *= inverse;
+      tail = 0;
+      for (let r = first + 1; r < n; r++) {
+        const a = wRe[r * n + k] * inverse;
+        const b = wIm[r * n + k] * inverse;
+        tail += a * a + b * b;
+      }
+    }
     if (tail === 0) {
       this.tau[k] = 0;
-      this.subRe[k] = alphaRe;
-      this.subIm[k] = alphaIm;
+      this.subRe[k] = alphaRe * s;
+      this.subIm[k] = alphaIm * s;
       return false;
     }
-    const absAlpha = Math.sqrt(alphaRe * alphaRe + alphaIm * alphaIm);
+    // |α| and its phase without squaring a possibly tiny α: the phase must have modulus 1 exactly enough.
+    const big = Math.max(Math.abs(alphaRe), Math.abs(alphaIm));
+    let absAlpha = 0;
+    let phRe = 1;
+    let phIm = 0;
+    if (big > 0) {
+      const ratioRe = alphaRe / big;
+      const ratioIm = alphaIm / big;
+      const h = Math.sqrt(ratioRe * ratioRe + ratioIm * ratioIm);
+      absAlpha = big * h;
+      phRe = ratioRe / h;
+      phIm = ratioIm / h;
+    }
     const norm = Math.sqrt(absAlpha * absAlpha + tail);
-    const phRe = absAlpha === 0 ? 1 : alphaRe / absAlpha;
-    const phIm = absAlpha === 0 ? 0 : alphaIm / absAlpha;
     this.tau[k] = 1 / (norm * (norm + absAlpha));
-    this.subRe[k] = -phRe * norm;
-    this.subIm[k] = -phIm * norm;
+    this.subRe[k] = -phRe * norm * s;
+    this.subIm[k] = -phIm * norm * s;
     const uRe = this.reflRe;
     const uIm = this.reflIm;
     const uRow = k * n;
     uRe[uRow + first] = alphaRe + phRe * norm;
     uIm[uRow + first] = alphaIm + phIm * norm;
     for (let r = first + 1; r < n; r++) {
-      uRe[uRow + r] = wRe[r * n + k];
-      uIm[uRow + r] = wIm[r * n + k];
+      uRe[uRow + r] = wRe[r * n + k] * inverse;
+      uIm[uRow + r] = wIm[r * n + k] * inverse;
     }
     return true;
   }

@@ -1,6 +1,6 @@
 /**
  * Eigenvalues (and optionally rotations of a basis) of a real symmetric tridiagonal matrix by the implicit
- * symmetric QR step with a Wilkinson shift (Golub & Van Loan, Matrix Computations, 4th ed., §8.3.3–8.3.5).
+ * symmetric QR step with a Wilkinson shift (Golub & Van Loan, Matrix Computations, 4th ed., §8.3).
  *
  * Layout: `diag[i]` (i = 0…n−1) is T[i][i]; `off[i]` (i = 0…n−2) is T[i][i+1] = T[i+1][i].
  * Basis rows (eigenvector variant): `rowsRe`/`rowsIm` are n×n row-major; row i holds the current basis vector
@@ -13,14 +13,26 @@ const EPS = 2 ** -52;
 /** Sweeps allowed per eigenvalue before giving up (LAPACK allows 30 per eigenvalue; common practice). */
 const SWEEPS_PER_VALUE = 30;
 
-/** True when off[i] is negligible beside its diagonal neighbours (relative test, Golub & Van Loan §8.3.5). */
+/**
+ * Off-diagonals below this are negligible outright: T is scaled to entries of order one, so this is far below
+ * ε·‖T‖, and squares of larger values stay normal numbers (no precision lost to underflow).
+ */
+const ABSOLUTE_FLOOR = 2 ** -500;
+/** Below this a rotation's x² + z² may have lost precision to underflow; rescale before the square root. */
+const ROTATION_UNSAFE = 2 ** -450;
+const FLOOR_SQUARED = ABSOLUTE_FLOOR * ABSOLUTE_FLOOR;
+
+/**
+ * True when off[i] is negligible beside its diagonal neighbours (relative test, Golub & Van Loan §8.3)
+ * or below the absolute floor.
+ */
 function negligible(diag: Float64Array, off: Float64Array, i: number): boolean {
-  const b = off[i];
-  return b === 0 || Math.abs(b) <= EPS * (Math.abs(diag[i]) + Math.abs(diag[i + 1]));
+  const b = Math.abs(off[i]);
+  return b <= ABSOLUTE_FLOOR || b <= EPS * (Math.abs(diag[i]) + Math.abs(diag[i + 1]));
 }
 
 /**
- * One implicit QR step on the unreduced block l…m (Golub & Van Loan Algorithm 8.3.2), chasing the bulge from the top.
+ * One implicit QR step on the unreduced block l…m (Golub & Van Loan §8.3, implicit symmetric QR step), chasing the bulge from the top.
  * When `rowsRe` is given the same rotations are applied to the basis rows.
  */
 function qrStep(
@@ -36,7 +48,11 @@ function qrStep(
   let x = diag[l] - shift;
   let z = off[l];
   for (let k = l; k < m; k++) {
-    const r = Math.sqrt(x * x + z * z);
+    let r = Math.sqrt(x * x + z * z);
+    if (r < ROTATION_UNSAFE && r !== 0) {
+      const big = Math.max(Math.abs(x), Math.abs(z));
+      r = big * Math.sqrt((x / big) * (x / big) + (z / big) * (z / big));
+    }
     // r = 0 only if the bulge vanished; the identity rotation keeps the block as it is.
     const c = r === 0 ? 1 : x / r;
     const s = r === 0 ? 0 : z / r;
@@ -74,7 +90,7 @@ function qrStep(
 
 /**
  * Eigenvalues only, by the root-free QR step of Pal, Walker and Kahan (Parlett, The Symmetric Eigenvalue Problem,
- * 1998, §8.15): it carries the squared off-diagonal, so a rotation costs divisions but no square root.
+ * 1998, ch. 8, root-free QR): it carries the squared off-diagonal, so a rotation costs divisions but no square root.
  * `offSquared[i]` is T[i][i+1]²; both arrays are overwritten. Returns false when it did not converge.
  */
 export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: Float64Array, n: number): boolean {
@@ -83,9 +99,9 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
   const maxSweeps = SWEEPS_PER_VALUE * n;
   let m = n - 1;
   while (m > 0) {
-    // Deflation test b² ≤ ε²·(|a_i| + |a_{i+1}|)², the square of the test in `negligible`.
+    // Deflation test b² ≤ ε²·(|a_i| + |a_{i+1}|)² or b² ≤ floor², the square of the test in `negligible`.
     let size = Math.abs(diag[m - 1]) + Math.abs(diag[m]);
-    if (offSquared[m - 1] <= eps2 * size * size) {
+    if (offSquared[m - 1] <= eps2 * size * size || offSquared[m - 1] <= FLOOR_SQUARED) {
       offSquared[m - 1] = 0;
       m--;
       continue;
@@ -93,7 +109,7 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
     let l = m - 1;
     while (l > 0) {
       size = Math.abs(diag[l - 1]) + Math.abs(diag[l]);
-      if (offSquared[l - 1] <= eps2 * size * size) break;
+      if (offSquared[l - 1] <= eps2 * size * size || offSquared[l - 1] <= FLOOR_SQUARED) break;
       l--;
     }
     if (l > 0) offSquared[l - 1] = 0;
@@ -103,7 +119,7 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
     const delta = 0.5 * (diag[m - 1] - diag[m]);
     const root = Math.sqrt(delta * delta + bb);
     const shift = diag[m] - bb / (delta + (delta >= 0 ? root : -root));
-    // γ-form of the shifted QR step (Parlett §8.15): γ is the running diagonal entry of the rotated T − σ,
+    // γ-form of the shifted QR step (Parlett, ch. 8): γ is the running diagonal entry of the rotated T − σ,
     // p = γ²/c² the square of the entry the next rotation eliminates against. Written with
     // ν = r·γ_next = p·(α − σ) − b²·γ so that the divisions 1/r and 1/(r·p) do not wait on each other.
     let c = 1;
@@ -119,7 +135,7 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
       const nu = p * (alpha - shift) - b2 * gamma;
       const nextGamma = nu * inverse;
       diag[i] = gamma + (alpha - nextGamma);
-      // p_next = γ_next²/c_next = ν²/(r·p); when p = 0 (c = 0) the limit is c_previous·b² (Parlett §8.15).
+      // p_next = γ_next²/c_next = ν²/(r·p); when p = 0 (c = 0) the limit is c_previous·b² (Parlett, ch. 8).
       const nextP = p !== 0 ? (nu * nu) / (r * p) : c * b2;
       c = p * inverse;
       s = b2 * inverse;

@@ -1,0 +1,49 @@
+import { describe, expect, it } from 'vitest';
+import { fillRandomHermitian, xorshift32 } from '../../src/tb/eighRandom.ts';
+
+describe('xorshift32(seed)', () => {
+  it('is deterministic per seed and stays in [0, 1)', () => {
+    const a = xorshift32(42);
+    const b = xorshift32(42);
+    const c = xorshift32(43);
+    let differs = false;
+    for (let i = 0; i < 10_000; i++) {
+      const x = a();
+      expect(x).toBe(b());
+      expect(x).toBeGreaterThanOrEqual(0);
+      expect(x).toBeLessThan(1);
+      if (x !== c()) differs = true;
+    }
+    expect(differs).toBe(true);
+  });
+
+  it('has a mean near 1/2 (uniform: standard error 1/√(12N); common practice)', () => {
+    const next = xorshift32(7);
+    const count = 100_000;
+    let sum = 0;
+    for (let i = 0; i < count; i++) sum += next();
+    expect(Math.abs(sum / count - 0.5)).toBeLessThan(5 / Math.sqrt(12 * count));
+  });
+
+  it('seed 0 still produces numbers (xorshift needs a non-zero state)', () => {
+    const next = xorshift32(0);
+    expect(next()).not.toBe(next());
+  });
+});
+
+describe('fillRandomHermitian(n, uniform, re, im)', () => {
+  it('fills an exactly Hermitian matrix with a real diagonal', () => {
+    const n = 9;
+    const re = new Float64Array(n * n);
+    const im = new Float64Array(n * n);
+    fillRandomHermitian(n, xorshift32(5), re, im);
+    for (let r = 0; r < n; r++) {
+      expect(im[r * n + r]).toBe(0);
+      for (let c = 0; c < n; c++) {
+        expect(re[r * n + c]).toBe(re[c * n + r]);
+        expect(im[r * n + c] + im[c * n + r]).toBe(0);
+        expect(Math.abs(re[r * n + c])).toBeLessThanOrEqual(1);
+      }
+    }
+  });
+});

@@ -1,0 +1,76 @@
+import { describe, expect, it } from 'vitest';
+import { diagonaliseTridiagonal, tridiagonalEigenvaluesRootFree } from '../../src/tb/eighTridiagonal.ts';
+
+const ascending = (values: Float64Array): number[] => Array.from(values).sort((x, y) => x - y);
+
+/** Both kernels on T = tridiag(off, diag, off); returns [with rotations, root-free], each sorted. */
+function bothKernels(diag: number[], off: number[]): [number[], number[]] {
+  const n = diag.length;
+  const d1 = Float64Array.from(diag);
+  const e1 = Float64Array.from([...off, 0]);
+  const rowsRe = new Float64Array(n * n);
+  const rowsIm = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) rowsRe[i * n + i] = 1;
+  expect(diagonaliseTridiagonal(d1, e1, n, rowsRe, rowsIm)).toBe(true);
+  const d2 = Float64Array.from(diag);
+  const e2 = Float64Array.from([...off.map((b) => b * b), 0]);
+  expect(tridiagonalEigenvaluesRootFree(d2, e2, n)).toBe(true);
+  return [ascending(d1), ascending(d2)];
+}
+
+describe('tridiagonal kernels', () => {
+  it('Toeplitz tridiag(b, a, b) has eigenvalues a + 2b·cos(kπ/(n+1))', () => {
+    // Analytic (Smith, Numerical Solution of PDEs by Finite Difference Methods, 3rd ed., Oxford 1985; from memory).
+    for (const [n, a, b] of [[1, 2, 1], [2, 0, 1], [10, 2, -1], [50, -0.3, 0.7], [128, 1, 1e-3]]) {
+      const expected = Array.from({ length: n }, (_, k) => a + 2 * b * Math.cos(((k + 1) * Math.PI) / (n + 1)));
+      expected.sort((x, y) => x - y);
+      for (const values of bothKernels(new Array(n).fill(a), new Array(n - 1).fill(b))) {
+        for (let k = 0; k < n; k++) expect(Math.abs(values[k] - expected[k])).toBeLessThanOrEqual(1e-13 * n);
+      }
+    }
+  });
+
+  it('the Clement matrix (zero diagonal, off-diagonal √(k(n−k))) has eigenvalues −(n−1), −(n−3), …, n−1', () => {
+    // Analytic (Clement, "A class of triple-diagonal matrices for test purposes", SIAM Review 1(1), 1959, 50–52).
+    for (const n of [2, 7, 20, 41]) {
+      const off = Array.from({ length: n - 1 }, (_, k) => Math.sqrt((k + 1) * (n - k - 1)));
+      const expected = Array.from({ length: n }, (_, k) => -(n - 1) + 2 * k);
+      for (const values of bothKernels(new Array(n).fill(0), off)) {
+        for (let k = 0; k < n; k++) expect(Math.abs(values[k] - expected[k])).toBeLessThanOrEqual(1e-12 * n);
+      }
+    }
+  });
+
+  it('rotations keep the basis rows orthonormal and diagonalise T (TZ = ZΛ)', () => {
+    // Invariant check (common practice): rows of the rotated identity are the eigenvectors of T.
+    const n = 30;
+    const diag = Array.from({ length: n }, (_, i) => Math.sin(i * 1.7));
+    const off = Array.from({ length: n - 1 }, (_, i) => Math.cos(i * 0.9) + 0.1);
+    const d = Float64Array.from(diag);
+    const e = Float64Array.from([...off, 0]);
+    const rowsRe = new Float64Array(n * n);
+    const rowsIm = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) rowsRe[i * n + i] = 1;
+    expect(diagonaliseTridiagonal(d, e, n, rowsRe, rowsIm)).toBe(true);
+    for (let m = 0; m < n; m++) {
+      for (let r = 0; r < n; r++) {
+        let t = diag[r] * rowsRe[m * n + r];
+        if (r > 0) t += off[r - 1] * rowsRe[m * n + r - 1];
+        if (r + 1 < n) t += off[r] * rowsRe[m * n + r + 1];
+        expect(Math.abs(t - d[m] * rowsRe[m * n + r])).toBeLessThanOrEqual(1e-13);
+      }
+      for (let q = 0; q < n; q++) {
+        let dot = 0;
+        for (let r = 0; r < n; r++) dot += rowsRe[m * n + r] * rowsRe[q * n + r];
+        expect(Math.abs(dot - (m === q ? 1 : 0))).toBeLessThanOrEqual(1e-14);
+      }
+    }
+    expect(Array.from(rowsIm).every((x) => x === 0)).toBe(true);
+  });
+
+  it('a NaN off-diagonal never deflates: both kernels report failure (false)', () => {
+    const d = new Float64Array([1, 2, 3]);
+    expect(diagonaliseTridiagonal(d.slice(), new Float64Array([1, NaN, 0]), 3)).toBe(false);
+    expect(tridiagonalEigenvaluesRootFree(d.slice(), new Float64Array([1, NaN, 0]), 3)).toBe(false);
+  });
+});
