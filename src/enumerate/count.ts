@@ -26,7 +26,7 @@ export function countStructures(options: EnumerateOptions): CountRow[] {
       if (n === 1 && work.wanted[0] === 1 && work.supercells[0]?.branch[0] === 1) {
         counts[0] = 1;
         meter.found++;
-        meter.complete(0, 1);
+        meter.complete(meter.examined, 1);
       }
       const ks = wantedList(work);
       for (const cell of ks.length > 0 ? work.supercells : []) {
@@ -38,6 +38,7 @@ export function countStructures(options: EnumerateOptions): CountRow[] {
           wanted: work.wanted,
           isolated: settings.isolated,
           branch: cell.branch,
+          examinedBefore: meter.examined,
           onTick: () => meter.report(search.examined, prefix[search.branchSite]),
         });
         while (search.next()) {

@@ -44,7 +44,7 @@ export function* enumerateStructures(options: EnumerateOptions): Generator<Struc
     const quotients: (SupercellQuotient | undefined)[] = [];
     if (n === 1 && work.wanted[0] === 1 && work.supercells[0]?.branch[0] === 1) {
       meter.found++;
-      meter.complete(0, 1);
+      meter.complete(meter.examined, 1);
       yield makeStructure(work.supercells[0].supercell, [], 0, settings.bond);
     }
     for (const k of wantedList(work)) {
@@ -61,6 +61,7 @@ export function* enumerateStructures(options: EnumerateOptions): Generator<Struc
           wanted,
           isolated: settings.isolated,
           branch: cell.branch,
+          examinedBefore: meter.examined,
           onTick: () => meter.report(search.examined, prefix[search.branchSite]),
         });
         while (search.next()) {

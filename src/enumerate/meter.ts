@@ -16,21 +16,21 @@ export class ProgressMeter {
     private readonly total: number,
   ) {}
 
-  /** Reports the live search's examined labelings and done weight on top of the finished ones. */
+  /** Reports the run's examined labelings and the live search's done weight on top of the finished searches'. */
   report(examined: number, weight: number): void {
     if (!this.callback) return;
     const share = this.total > 0 ? (this.weightBefore + weight) / this.total : 0;
     this.lastFraction = Math.max(this.lastFraction, Math.min(1, share));
-    this.callback({ examined: this.examinedBefore + examined, found: this.found, fraction: this.lastFraction });
+    this.callback({ examined, found: this.found, fraction: this.lastFraction });
   }
 
-  /** Books a finished search. */
+  /** Books a finished search: the run's examined count after it and the search's weight. */
   complete(examined: number, weight: number): void {
-    this.examinedBefore += examined;
+    this.examinedBefore = examined;
     this.weightBefore += weight;
   }
 
-  /** Labelings examined by the finished searches. */
+  /** Labelings examined by the finished searches (start of the next search's count). */
   get examined(): number {
     return this.examinedBefore;
   }

@@ -25,7 +25,11 @@ export interface SearchPlan {
   readonly isolated: boolean;
   /** branch[c] = 1 when the subtree with holes[1] = c (c ≥ 1) is searched; branch[0] = 1 reports the one-hole labeling. */
   readonly branch: Uint8Array;
-  /** Called every 4096 labelings examined. */
+  /** Also report superperiodic labelings (a smaller cell repeats them); default false. */
+  readonly superperiodic?: boolean;
+  /** Labelings examined before this search (the run's running count continues from here). Default 0. */
+  readonly examinedBefore?: number;
+  /** Called whenever the run's count of labelings examined reaches a multiple of 4096. */
   readonly onTick?: () => void;
 }
 
@@ -39,8 +43,8 @@ export class LabelingSearch {
   readonly holes: Int32Array;
   /** Number of holes of the current labeling. */
   size = 1;
-  /** Labelings tested so far (partial ones included). */
-  examined = 0;
+  /** Labelings tested so far in the run (partial ones included), starting from plan.examinedBefore. */
+  examined: number;
 
   private readonly n: number;
   private readonly words: number;
@@ -48,6 +52,7 @@ export class LabelingSearch {
   private readonly image: Int32Array;
   private readonly blocked: Int32Array;
   private readonly cursor: Int32Array;
+  private readonly keepAll: boolean;
   private pending: boolean;
   private primitive = true;
   private finished = false;
@@ -58,6 +63,8 @@ export class LabelingSearch {
   ) {
     const n = quotient.sites;
     this.n = n;
+    this.examined = plan.examinedBefore ?? 0;
+    this.keepAll = plan.superperiodic ?? false;
     this.words = (n + 31) >> 5;
     this.holes = new Int32Array(plan.maxHoles + 1);
     this.mask = new Int32Array(this.words);
@@ -82,7 +89,7 @@ export class LabelingSearch {
     for (;;) {
       if (this.pending) {
         this.pending = false;
-        if (plan.wanted[this.size] === 1 && this.primitive) return true;
+        if (plan.wanted[this.size] === 1 && (this.primitive || this.keepAll)) return true;
       }
       const size = this.size;
       if (size < plan.maxHoles) {
