@@ -2,9 +2,8 @@
  * Counts of structures per (N, k) without listing them: one search per supercell over all wanted hole counts,
  * memory flat (one supercell's tables at a time).
  */
-import { planWeight, wantedList } from './enumerate.ts';
 import { ProgressMeter } from './meter.ts';
-import { branchWeights, planWork, settingsOf } from './plan.ts';
+import { branchWeights, planWeight, planWork, settingsOf, wantedList } from './plan.ts';
 import { buildQuotient } from './quotient.ts';
 import { LabelingSearch } from './search.ts';
 import type { CountRow, EnumerateOptions } from './types.ts';

@@ -127,3 +127,22 @@ export function branchWeights(n: number, work: SupercellWork, ks: readonly numbe
   }
   return prefix;
 }
+
+/** Hole counts k ≥ 1 wanted at one N. */
+export function wantedList(work: SitesWork): number[] {
+  const ks: number[] = [];
+  for (let k = 1; k <= work.maxHoles; k++) if (work.wanted[k] === 1) ks.push(k);
+  return ks;
+}
+
+/** Total progress weight of a plan (the same for listing and counting). */
+export function planWeight(plan: readonly SitesWork[]): number {
+  let total = 0;
+  for (const work of plan) {
+    if (work.sites === 1 && work.wanted[0] === 1 && work.supercells[0]?.branch[0] === 1) total += 1;
+    const ks = wantedList(work);
+    if (ks.length === 0) continue;
+    for (const cell of work.supercells) if (cell.holesPossible) total += branchWeights(work.sites, cell, ks)[work.sites];
+  }
+  return total;
+}
