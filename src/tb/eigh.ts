@@ -31,6 +31,9 @@ export class HermitianEigensolver {
   private readonly sumRe: Float64Array;
   private readonly sumIm: Float64Array;
   private readonly order: Int32Array;
+  // Q, then the basis rows (Q·D)ᵀ rotated by the QR sweeps (row-major n×n, split).
+  private readonly rowsRe: Float64Array;
+  private readonly rowsIm: Float64Array;
 
   constructor(n: number) {
     this.n = n;
@@ -42,6 +45,8 @@ export class HermitianEigensolver {
     this.sumRe = new Float64Array(n);
     this.sumIm = new Float64Array(n);
     this.order = new Int32Array(n);
+    this.rowsRe = new Float64Array(n * n);
+    this.rowsIm = new Float64Array(n * n);
   }
 
   /** Ascending eigenvalues into out (length ≥ n); returns out. */
@@ -82,13 +87,12 @@ export class HermitianEigensolver {
     if (n === 0) return;
     const reduction = this.reduction;
     const scale = reduction.reduce(re, im);
-    const rowsRe = reduction.workRe;
-    const rowsIm = reduction.workIm;
+    const rowsRe = this.rowsRe;
+    const rowsIm = this.rowsIm;
     let converged = !Number.isNaN(scale);
     if (converged) {
       this.diag.set(reduction.diag);
       this.phases();
-      // The reduction's working copy is free now: it holds Q, then the basis rows (Q·D)ᵀ.
       this.accumulateQ(rowsRe, rowsIm);
       this.basisRows(rowsRe, rowsIm);
       converged = diagonaliseTridiagonal(this.diag, this.off, n, rowsRe, rowsIm);

@@ -2,26 +2,31 @@
  * Householder reduction of a complex Hermitian matrix to tridiagonal form, H = Q·T·Qᴴ
  * (Golub & Van Loan, Matrix Computations, 4th ed., §8.3, written here in complex form).
  *
- * Layout: the working copy `workRe`/`workIm` is n×n row-major and only its lower triangle (c ≤ r) is read or
- * written; element (r, c) is workRe[r*n + c] + i·workIm[r*n + c]. Reflector k is P_k = I − τ_k·u_k·u_kᴴ
- * (τ_k real, P_k Hermitian and unitary) acting on indices k+1…n−1; u_k is stored in row k of `reflRe`/`reflIm`
- * (entries k+1…n−1). Results: `diag[k]` = T[k][k] (real), `subRe[k] + i·subIm[k]` = T[k+1][k] (complex).
+ * Layout. Working copy `work`: n×n row-major, complex interleaved, lower triangle only (c ≤ r) —
+ * element (r, c) is work[2(r·n + c)] + i·work[2(r·n + c) + 1]. Vectors of one step: `lanes`, 8 doubles per
+ * index j — [u_j, w_j, v_j, q_j] as (re, im) pairs: u the current reflector, w its rank-2 vector, v the next
+ * reflector, q the product A₂₂·v being accumulated — so the hot loop reads one array with one running index.
+ * Reflector k is P_k = I − τ_k·u_k·u_kᴴ (τ_k real; P_k Hermitian and unitary) on indices k+1…n−1; u_k is kept
+ * for the back-transformation in row k of `reflRe`/`reflIm` (entries k+1…n−1).
+ * Results: `diag[k]` = T[k][k] (real), `subRe[k] + i·subIm[k]` = T[k+1][k] (complex).
  *
- * Each step k applies A₂₂ ← P·A₂₂·P = A₂₂ − u·wᴴ − w·uᴴ with p = τ·A₂₂·u, w = p − (τ·uᴴp/2)·u, on the lower
- * triangle only. The rank-2 update of step k and the product A₂₂·u of step k+1 share one pass over the triangle
- * (the updated column k+1 is formed first, so u_{k+1} is known before the pass).
+ * Each step applies A₂₂ ← P·A₂₂·P = A₂₂ − u·wᴴ − w·uᴴ with p = τ·A₂₂·u, w = p − (τ·uᴴp/2)·u, on the lower
+ * triangle only. The rank-2 update of step k and the product A₂₂·u_{k+1} of step k+1 share one pass over the
+ * triangle (column k+1 is updated first, so u_{k+1} is known before the pass).
  */
 
 /** Below this, a sum of squares may have lost precision to underflow (2^−1022/ε ≈ 2^−970); rescale first. */
 const SQUARES_UNSAFE = 2 ** -900;
+/** Largest entries in this range need no rescaling (their squares and products are safe). */
+const SCALE_FREE_LOW = 2 ** -100;
+const SCALE_FREE_HIGH = 2 ** 100;
+// Offsets inside one 8-double lane are written as literals in the loops: u +0, w +2, v +4, q +6 (re; im +1).
+// Module-level constants would be re-read with a hole check on every access by V8's optimiser.
 
 /** Workspaces and results of the reduction for one matrix order n (allocated once, reused). */
 export class HermitianTridiagonaliser {
   /** Matrix order. */
   readonly n: number;
-  /** Working copy (lower triangle); free for the caller's use after `reduce`. */
-  readonly workRe: Float64Array;
-  readonly workIm: Float64Array;
   /** Reflector u_k in row k, entries k+1…n−1. */
   readonly reflRe: Float64Array;
   readonly reflIm: Float64Array;
@@ -32,26 +37,19 @@ export class HermitianTridiagonaliser {
   /** Complex sub-diagonal T[k+1][k], k = 0…n−2. */
   readonly subRe: Float64Array;
   readonly subIm: Float64Array;
-  // Two vector buffers: A₂₂·u of the current step (turned into w) and of the next step.
-  private readonly vecARe: Float64Array;
-  private readonly vecAIm: Float64Array;
-  private readonly vecBRe: Float64Array;
-  private readonly vecBIm: Float64Array;
+  private readonly work: Float64Array;
+  private readonly lanes: Float64Array;
 
   constructor(n: number) {
     this.n = n;
-    this.workRe = new Float64Array(n * n);
-    this.workIm = new Float64Array(n * n);
     this.reflRe = new Float64Array(n * n);
     this.reflIm = new Float64Array(n * n);
     this.tau = new Float64Array(n);
     this.diag = new Float64Array(n);
     this.subRe = new Float64Array(n);
     this.subIm = new Float64Array(n);
-    this.vecARe = new Float64Array(n);
-    this.vecAIm = new Float64Array(n);
-    this.vecBRe = new Float64Array(n);
-    this.vecBIm = new Float64Array(n);
+    this.work = new Float64Array(2 * n * n);
+    this.lanes = new Float64Array(8 * n);
   }
 
   /**
@@ -63,71 +61,61 @@ export class HermitianTridiagonaliser {
     const n = this.n;
     const scale = this.copyLower(re, im);
     if (Number.isNaN(scale)) return scale;
-    const wRe = this.workRe;
+    const work = this.work;
     const tau = this.tau;
-    this.diag[0] = wRe[0];
+    this.diag[0] = work[0];
     if (n === 1) return scale;
-    let pRe = this.vecARe;
-    let pIm = this.vecAIm;
-    let qRe = this.vecBRe;
-    let qIm = this.vecBIm;
-    this.reflector(0);
-    if (tau[0] !== 0) this.productOnly(1, pRe, pIm);
+    if (this.reflector(0)) this.productOnly(1);
     for (let k = 0; k + 1 < n; k++) {
       const first = k + 1;
       const updating = tau[k] !== 0;
       if (updating) {
-        this.toRankTwoVector(k, pRe, pIm);
-        this.updateColumn(k, pRe, pIm);
+        this.promote(first);
+        this.toRankTwoVector(k);
+        this.updateColumn(k);
       }
-      this.diag[first] = wRe[first * n + first];
+      this.diag[first] = work[2 * (first * n + first)];
       const producing = first + 1 < n && this.reflector(first);
-      if (updating && producing) this.updateAndProduct(k, pRe, pIm, qRe, qIm);
-      else if (updating) this.updateOnly(k, pRe, pIm);
-      else if (producing) this.productOnly(first + 1, qRe, qIm);
-      const tRe = pRe;
-      const tIm = pIm;
-      pRe = qRe;
-      pIm = qIm;
-      qRe = tRe;
-      qIm = tIm;
+      if (updating && producing) this.updateAndProduct(k);
+      else if (updating) this.updateOnly(k);
+      else if (producing) this.productOnly(first + 1);
     }
     return scale;
   }
 
   /**
-   * Copies the lower triangle into the workspace scaled by the power of two 2^−e that brings its largest entry
-   * near 1 (exact, so c·H still gives c·λ exactly for c = 2^j); returns 2^e, the factor to undo, or NaN
-   * for a matrix with an infinite or NaN entry.
-   * With entries of order one, squares over/underflow only for entries below 2^−500, which the kernels treat
-   * as negligible or rescale locally.
+   * Copies the lower triangle into the workspace; returns 1, or NaN for a matrix with an infinite or NaN entry.
+   * When the largest entry lies outside [2^−100, 2^100] the copy is scaled by the power of two 2^−e that brings
+   * it near 1 (exact) and 2^e, the factor to undo, is returned. Entries then stay in a range where the squares
+   * the kernels form neither overflow nor lose precision, except entries below 2^−500 relative to the largest,
+   * which the kernels treat as negligible or rescale locally.
    */
   private copyLower(re: Float64Array, im: Float64Array): number {
     const n = this.n;
-    const wRe = this.workRe;
-    const wIm = this.workIm;
+    const work = this.work;
     let largest = 0;
-    // size − size is 0 for finite entries and NaN for ±∞ or NaN, so `finite` stays 0 only for a finite matrix.
+    // x − x is 0 for finite x and NaN for ±∞ or NaN, so `finite` stays 0 only for a finite matrix.
     let finite = 0;
     for (let r = 0; r < n; r++) {
       const row = r * n;
-      for (let c = 0; c <= r; c++) {
-        const size = Math.max(Math.abs(re[row + c]), Math.abs(im[row + c]));
-        finite += size - size;
+      for (let c = 0, a = 2 * row; c <= r; c++, a += 2) {
+        const x = re[row + c];
+        const y = im[row + c];
+        work[a] = x;
+        work[a + 1] = y;
+        finite += x - x + (y - y);
+        const size = Math.max(Math.abs(x), Math.abs(y));
         if (size > largest) largest = size;
       }
     }
     if (finite !== 0) return NaN;
-    const exponent = largest > 0 ? Math.round(Math.log2(largest)) : 0;
+    if (largest === 0 || (largest >= SCALE_FREE_LOW && largest <= SCALE_FREE_HIGH)) return 1;
+    const exponent = Math.round(Math.log2(largest));
     // 2^−e overflows for subnormal inputs (e < −1023): apply it as two exact powers of two.
     const firstFactor = 2 ** Math.min(-exponent, 1000);
     const secondFactor = 2 ** (-exponent - Math.min(-exponent, 1000));
     for (let r = 0; r < n; r++) {
-      const row = r * n;
-      for (let c = 0; c <= r; c++) {
-        wRe[row + c] = re[row + c] * firstFactor * secondFactor;
-        wIm[row + c] = im[row + c] * firstFactor * secondFactor;
-      }
+      for (let a = 2 * r * n, end = a + 2 * (r + 1); a < end; a++) work[a] = work[a] * firstFactor * secondFactor;
     }
     return 2 ** exponent;
   }
@@ -135,19 +123,19 @@ export class HermitianTridiagonaliser {
   /**
    * Reflector k from column k (rows k+1…n−1) of the updated working copy: P·x = −phase(x₀)·‖x‖·e₁ with
    * u = x + phase(x₀)·‖x‖·e₁ (no cancellation) and τ = 2/(uᴴu) = 1/(‖x‖·(‖x‖ + |x₀|)).
-   * Returns false (τ = 0, T[k+1][k] = x₀) when x is already a multiple of e₁.
+   * Writes u into row k of reflRe/reflIm and into the v lanes. Returns false (τ = 0, T[k+1][k] = x₀)
+   * when x is already a multiple of e₁.
    */
   private reflector(k: number): boolean {
     const n = this.n;
-    const wRe = this.workRe;
-    const wIm = this.workIm;
+    const work = this.work;
     const first = k + 1;
-    let alphaRe = wRe[first * n + k];
-    let alphaIm = wIm[first * n + k];
+    let alphaRe = work[2 * (first * n + k)];
+    let alphaIm = work[2 * (first * n + k) + 1];
     let tail = 0;
     for (let r = first + 1; r < n; r++) {
-      const a = wRe[r * n + k];
-      const b = wIm[r * n + k];
+      const a = work[2 * (r * n + k)];
+      const b = work[2 * (r * n + k) + 1];
       tail += a * a + b * b;
     }
     // u and τ may be computed from x/s for any s > 0 (P is unchanged); s is a power of two (exact), ≠ 1 only
@@ -156,7 +144,9 @@ export class HermitianTridiagonaliser {
     let inverse = 1;
     if (tail + alphaRe * alphaRe + alphaIm * alphaIm < SQUARES_UNSAFE) {
       let largest = 0;
-      for (let r = first; r < n; r++) largest = Math.max(largest, Math.abs(wRe[r * n + k]), Math.abs(wIm[r * n + k]));
+      for (let r = first; r < n; r++) {
+        largest = Math.max(largest, Math.abs(work[2 * (r * n + k)]), Math.abs(work[2 * (r * n + k) + 1]));
+      }
       if (largest > 0) {
         s = 2 ** Math.max(-1000, Math.round(Math.log2(largest)));
         inverse = 1 / s;
@@ -165,8 +155,8 @@ export class HermitianTridiagonaliser {
       alphaIm *= inverse;
       tail = 0;
       for (let r = first + 1; r < n; r++) {
-        const a = wRe[r * n + k] * inverse;
-        const b = wIm[r * n + k] * inverse;
+        const a = work[2 * (r * n + k)] * inverse;
+        const b = work[2 * (r * n + k) + 1] * inverse;
         tail += a * a + b * b;
       }
     }
@@ -176,7 +166,7 @@ export class HermitianTridiagonaliser {
       this.subIm[k] = alphaIm * s;
       return false;
     }
-    // |α| and its phase without squaring a possibly tiny α: the phase must have modulus 1 exactly enough.
+    // |α| and its phase without squaring a possibly tiny α: the phase must have modulus 1 to full precision.
     const big = Math.max(Math.abs(alphaRe), Math.abs(alphaIm));
     let absAlpha = 0;
     let phRe = 1;
@@ -195,164 +185,173 @@ export class HermitianTridiagonaliser {
     this.subIm[k] = -phIm * norm * s;
     const uRe = this.reflRe;
     const uIm = this.reflIm;
+    const lanes = this.lanes;
     const uRow = k * n;
     uRe[uRow + first] = alphaRe + phRe * norm;
     uIm[uRow + first] = alphaIm + phIm * norm;
     for (let r = first + 1; r < n; r++) {
-      uRe[uRow + r] = wRe[r * n + k] * inverse;
-      uIm[uRow + r] = wIm[r * n + k] * inverse;
+      uRe[uRow + r] = work[2 * (r * n + k)] * inverse;
+      uIm[uRow + r] = work[2 * (r * n + k) + 1] * inverse;
+    }
+    for (let r = first; r < n; r++) {
+      lanes[8 * r + 4] = uRe[uRow + r];
+      lanes[8 * r + 5] = uIm[uRow + r];
     }
     return true;
   }
 
-  /** Turns p = A₂₂·u_k (entries k+1…n−1) into w = τp − (τ²·uᴴp/2)·u in place. */
-  private toRankTwoVector(k: number, pRe: Float64Array, pIm: Float64Array): void {
-    const n = this.n;
+  /** Starts a step at index `first`: the next reflector v becomes the current u, its product q becomes p (in w). */
+  private promote(first: number): void {
+    const lanes = this.lanes;
+    for (let j = 8 * first, end = 8 * this.n; j < end; j += 8) {
+      lanes[j] = lanes[j + 4];
+      lanes[j + 1] = lanes[j + 5];
+      lanes[j + 2] = lanes[j + 6];
+      lanes[j + 3] = lanes[j + 7];
+    }
+  }
+
+  /** Turns p = A₂₂·u_k in the w lanes (indices k+1…n−1) into w = τp − (τ²·uᴴp/2)·u. */
+  private toRankTwoVector(k: number): void {
+    const lanes = this.lanes;
     const tau = this.tau[k];
-    const uRe = this.reflRe;
-    const uIm = this.reflIm;
-    const uRow = k * n;
+    const start = 8 * (k + 1);
+    const end = 8 * this.n;
     let uhp = 0;
-    for (let i = k + 1; i < n; i++) {
-      pRe[i] *= tau;
-      pIm[i] *= tau;
-      uhp += uRe[uRow + i] * pRe[i] + uIm[uRow + i] * pIm[i];
+    for (let j = start; j < end; j += 8) {
+      const pRe = tau * lanes[j + 2];
+      const pIm = tau * lanes[j + 3];
+      lanes[j + 2] = pRe;
+      lanes[j + 3] = pIm;
+      uhp += lanes[j] * pRe + lanes[j + 1] * pIm;
     }
     const half = 0.5 * tau * uhp;
-    for (let i = k + 1; i < n; i++) {
-      pRe[i] -= half * uRe[uRow + i];
-      pIm[i] -= half * uIm[uRow + i];
+    for (let j = start; j < end; j += 8) {
+      lanes[j + 2] -= half * lanes[j];
+      lanes[j + 3] -= half * lanes[j + 1];
     }
   }
 
   /** Applies −u·wᴴ − w·uᴴ of step k to column k+1 (rows k+1…n−1), the column the next reflector reads. */
-  private updateColumn(k: number, wVecRe: Float64Array, wVecIm: Float64Array): void {
+  private updateColumn(k: number): void {
     const n = this.n;
-    const wRe = this.workRe;
-    const wIm = this.workIm;
-    const uRe = this.reflRe;
-    const uIm = this.reflIm;
-    const uRow = k * n;
+    const work = this.work;
+    const lanes = this.lanes;
     const c = k + 1;
-    const ucRe = uRe[uRow + c];
-    const ucIm = uIm[uRow + c];
-    const wcRe = wVecRe[c];
-    const wcIm = wVecIm[c];
+    const ucRe = lanes[8 * c];
+    const ucIm = lanes[8 * c + 1];
+    const wcRe = lanes[8 * c + 2];
+    const wcIm = lanes[8 * c + 3];
     for (let i = c; i < n; i++) {
-      const uiRe = uRe[uRow + i];
-      const uiIm = uIm[uRow + i];
-      const wiRe = wVecRe[i];
-      const wiIm = wVecIm[i];
-      wRe[i * n + c] -= uiRe * wcRe + uiIm * wcIm + wiRe * ucRe + wiIm * ucIm;
-      wIm[i * n + c] -= uiIm * wcRe - uiRe * wcIm + wiIm * ucRe - wiRe * ucIm;
+      const uiRe = lanes[8 * i];
+      const uiIm = lanes[8 * i + 1];
+      const wiRe = lanes[8 * i + 2];
+      const wiIm = lanes[8 * i + 3];
+      const at = 2 * (i * n + c);
+      work[at] -= uiRe * wcRe + uiIm * wcIm + wiRe * ucRe + wiIm * ucIm;
+      work[at + 1] -= uiIm * wcRe - uiRe * wcIm + wiIm * ucRe - wiRe * ucIm;
     }
   }
 
-  /** A₂₂·u_{start−1} over rows/columns start…n−1 into q (Hermitian product from the lower triangle). */
-  private productOnly(start: number, qRe: Float64Array, qIm: Float64Array): void {
+  /** q = A₂₂·v over rows/columns start…n−1 (Hermitian product from the lower triangle): row i gives q_i += A_ij v_j and q_j += conj(A_ij) v_i. */
+  private productOnly(start: number): void {
     const n = this.n;
-    const wRe = this.workRe;
-    const wIm = this.workIm;
-    const vRe = this.reflRe;
-    const vIm = this.reflIm;
-    const vRow = (start - 1) * n;
-    qRe.fill(0, start, n);
-    qIm.fill(0, start, n);
+    const work = this.work;
+    const lanes = this.lanes;
+    for (let j = 8 * start, end = 8 * n; j < end; j += 8) {
+      lanes[j + 6] = 0;
+      lanes[j + 7] = 0;
+    }
     for (let i = start; i < n; i++) {
-      const row = i * n;
-      const viRe = vRe[vRow + i];
-      const viIm = vIm[vRow + i];
+      const li = 8 * i;
+      const viRe = lanes[li + 4];
+      const viIm = lanes[li + 5];
       let sRe = 0;
       let sIm = 0;
-      for (let j = start; j < i; j++) {
-        const a = wRe[row + j];
-        const b = wIm[row + j];
-        const vjRe = vRe[vRow + j];
-        const vjIm = vIm[vRow + j];
-        sRe += a * vjRe - b * vjIm;
-        sIm += a * vjIm + b * vjRe;
-        qRe[j] += a * viRe + b * viIm;
-        qIm[j] += a * viIm - b * viRe;
+      for (let a = 2 * (i * n + start), l = 8 * start; l < li; a = (a + 2) | 0, l = (l + 8) | 0) {
+        const x = work[a];
+        const y = work[(a + 1) | 0];
+        const vjRe = lanes[(l + 4) | 0];
+        const vjIm = lanes[(l + 5) | 0];
+        sRe += x * vjRe - y * vjIm;
+        sIm += x * vjIm + y * vjRe;
+        lanes[(l + 6) | 0] += x * viRe + y * viIm;
+        lanes[(l + 7) | 0] += x * viIm - y * viRe;
       }
-      const d = wRe[row + i];
-      qRe[i] += sRe + d * viRe;
-      qIm[i] += sIm + d * viIm;
+      const d = work[2 * (i * n + i)];
+      lanes[li + 6] += sRe + d * viRe;
+      lanes[li + 7] += sIm + d * viIm;
     }
   }
 
   /** Rank-2 update of step k over rows/columns k+2…n−1 (no product: step k+1 needs no reflection). */
-  private updateOnly(k: number, wVecRe: Float64Array, wVecIm: Float64Array): void {
+  private updateOnly(k: number): void {
     const n = this.n;
-    const wRe = this.workRe;
-    const wIm = this.workIm;
-    const uRe = this.reflRe;
-    const uIm = this.reflIm;
-    const uRow = k * n;
+    const work = this.work;
+    const lanes = this.lanes;
     const start = k + 2;
     for (let i = start; i < n; i++) {
-      const row = i * n;
-      const uiRe = uRe[uRow + i];
-      const uiIm = uIm[uRow + i];
-      const wiRe = wVecRe[i];
-      const wiIm = wVecIm[i];
-      for (let j = start; j <= i; j++) {
-        const ujRe = uRe[uRow + j];
-        const ujIm = uIm[uRow + j];
-        const wjRe = wVecRe[j];
-        const wjIm = wVecIm[j];
-        wRe[row + j] -= uiRe * wjRe + uiIm * wjIm + wiRe * ujRe + wiIm * ujIm;
-        wIm[row + j] -= uiIm * wjRe - uiRe * wjIm + wiIm * ujRe - wiRe * ujIm;
+      const li = 8 * i;
+      const uiRe = lanes[li];
+      const uiIm = lanes[li + 1];
+      const wiRe = lanes[li + 2];
+      const wiIm = lanes[li + 3];
+      for (let a = 2 * (i * n + start), l = 8 * start; l <= li; a = (a + 2) | 0, l = (l + 8) | 0) {
+        const ujRe = lanes[l];
+        const ujIm = lanes[(l + 1) | 0];
+        const wjRe = lanes[(l + 2) | 0];
+        const wjIm = lanes[(l + 3) | 0];
+        work[a] -= uiRe * wjRe + uiIm * wjIm + wiRe * ujRe + wiIm * ujIm;
+        work[(a + 1) | 0] -= uiIm * wjRe - uiRe * wjIm + wiIm * ujRe - wiRe * ujIm;
       }
     }
   }
 
   /**
-   * Rank-2 update of step k over rows/columns k+2…n−1 fused with q = A₂₂·u_{k+1} on the updated entries:
-   * one pass over the triangle instead of two.
+   * Rank-2 update of step k over rows/columns k+2…n−1 fused with q = A₂₂·v (v = u_{k+1}) on the updated
+   * entries: one pass over the triangle instead of two.
    */
-  private updateAndProduct(
-    k: number, wVecRe: Float64Array, wVecIm: Float64Array, qRe: Float64Array, qIm: Float64Array,
-  ): void {
+  private updateAndProduct(k: number): void {
     const n = this.n;
-    const wRe = this.workRe;
-    const wIm = this.workIm;
-    const uRe = this.reflRe;
-    const uIm = this.reflIm;
-    const uRow = k * n;
-    const vRow = uRow + n;
+    const work = this.work;
+    const lanes = this.lanes;
     const start = k + 2;
-    qRe.fill(0, start, n);
-    qIm.fill(0, start, n);
+    for (let j = 8 * start, end = 8 * n; j < end; j += 8) {
+      lanes[j + 6] = 0;
+      lanes[j + 7] = 0;
+    }
     for (let i = start; i < n; i++) {
-      const row = i * n;
-      const uiRe = uRe[uRow + i];
-      const uiIm = uIm[uRow + i];
-      const wiRe = wVecRe[i];
-      const wiIm = wVecIm[i];
-      const viRe = uRe[vRow + i];
-      const viIm = uIm[vRow + i];
+      const li = 8 * i;
+      const uiRe = lanes[li];
+      const uiIm = lanes[li + 1];
+      const wiRe = lanes[li + 2];
+      const wiIm = lanes[li + 3];
+      const viRe = lanes[li + 4];
+      const viIm = lanes[li + 5];
       let sRe = 0;
       let sIm = 0;
-      for (let j = start; j < i; j++) {
-        const ujRe = uRe[uRow + j];
-        const ujIm = uIm[uRow + j];
-        const wjRe = wVecRe[j];
-        const wjIm = wVecIm[j];
-        const a = wRe[row + j] - (uiRe * wjRe + uiIm * wjIm + wiRe * ujRe + wiIm * ujIm);
-        const b = wIm[row + j] - (uiIm * wjRe - uiRe * wjIm + wiIm * ujRe - wiRe * ujIm);
-        wRe[row + j] = a;
-        wIm[row + j] = b;
-        const vjRe = uRe[vRow + j];
-        const vjIm = uIm[vRow + j];
-        sRe += a * vjRe - b * vjIm;
-        sIm += a * vjIm + b * vjRe;
-        qRe[j] += a * viRe + b * viIm;
-        qIm[j] += a * viIm - b * viRe;
+      let a = 2 * (i * n + start);
+      // `| 0` keeps the index arithmetic in int32 without overflow checks (indices are < 8n², far from 2^31).
+      for (let l = 8 * start; l < li; a = (a + 2) | 0, l = (l + 8) | 0) {
+        const ujRe = lanes[l];
+        const ujIm = lanes[(l + 1) | 0];
+        const wjRe = lanes[(l + 2) | 0];
+        const wjIm = lanes[(l + 3) | 0];
+        const x = work[a] - (uiRe * wjRe + uiIm * wjIm + wiRe * ujRe + wiIm * ujIm);
+        const y = work[(a + 1) | 0] - (uiIm * wjRe - uiRe * wjIm + wiIm * ujRe - wiRe * ujIm);
+        work[a] = x;
+        work[(a + 1) | 0] = y;
+        const vjRe = lanes[(l + 4) | 0];
+        const vjIm = lanes[(l + 5) | 0];
+        sRe += x * vjRe - y * vjIm;
+        sIm += x * vjIm + y * vjRe;
+        lanes[(l + 6) | 0] += x * viRe + y * viIm;
+        lanes[(l + 7) | 0] += x * viIm - y * viRe;
       }
-      const d = wRe[row + i] - 2 * (uiRe * wiRe + uiIm * wiIm);
-      wRe[row + i] = d;
-      qRe[i] += sRe + d * viRe;
-      qIm[i] += sIm + d * viIm;
+      const d = work[a] - 2 * (uiRe * wiRe + uiIm * wiIm);
+      work[a] = d;
+      lanes[li + 6] += sRe + d * viRe;
+      lanes[li + 7] += sIm + d * viIm;
     }
   }
 }

@@ -6,7 +6,7 @@
  * Basis rows (eigenvector variant): `rowsRe`/`rowsIm` are n×n row-major; row i holds the current basis vector
  * that belongs to index i of T, so a rotation in the (i, i+1) plane touches two contiguous rows.
  * Both arrays are overwritten: `diag` ends with the (unsorted) eigenvalues, `off` with zeros.
- * Callers pre-scale T so that squares neither overflow nor underflow (entries of order one).
+ * Callers pre-scale T so that its largest entry lies in [2^−100, 2^100] (squares neither overflow nor underflow).
  */
 
 const EPS = 2 ** -52;
@@ -14,8 +14,8 @@ const EPS = 2 ** -52;
 const SWEEPS_PER_VALUE = 30;
 
 /**
- * Off-diagonals below this are negligible outright: T is scaled to entries of order one, so this is far below
- * ε·‖T‖, and squares of larger values stay normal numbers (no precision lost to underflow).
+ * Off-diagonals below this are negligible outright: callers scale T so that its largest entry lies in
+ * [2^−100, 2^100], so this is far below ε·‖T‖, and squares of larger values stay normal numbers.
  */
 const ABSOLUTE_FLOOR = 2 ** -500;
 /** Below this a rotation's x² + z² may have lost precision to underflow; rescale before the square root. */
