@@ -11,7 +11,7 @@ import { NEAREST_STEPS } from './triangular.ts';
 
 /** Vacancies joined by nearest-neighbour steps, within one supercell. */
 export interface VacancyCluster {
-  /** Its vacancies, reduced lattice points (0 ≤ i < a, 0 ≤ j < c), in the pattern's order. */
+  /** Its vacancies (the pattern's own entries: reduced lattice points), in the pattern's order. */
   readonly sites: [number, number][];
   /** Number of vacancies per supercell in the cluster. */
   readonly size: number;
@@ -31,6 +31,8 @@ export function vacancyClusters(pattern: Pattern): VacancyCluster[] {
   const label = new Int32Array(n).fill(-1);
   const reachedI = new Float64Array(n), reachedJ = new Float64Array(n);
   const clusters: VacancyCluster[] = [];
+  const entryAt = new Map<number, [number, number]>();
+  for (const site of pattern.vacancies) entryAt.set(index(h, site), site);
   for (const start of pattern.vacancies) {
     const startIndex = index(h, start);
     if (label[startIndex] >= 0) continue;
@@ -58,7 +60,7 @@ export function vacancyClusters(pattern: Pattern): VacancyCluster[] {
       }
     }
     members.sort((x, y) => x - y);
-    const sites = members.map((m): [number, number] => [m % h.a, Math.floor(m / h.a)]);
+    const sites = members.map((m) => entryAt.get(m)!);
     clusters.push({ sites, size: sites.length, periodic });
   }
   return clusters;

@@ -1,15 +1,15 @@
 /**
  * Explicit sheet → vacancy pattern, when the atoms sit on a triangular lattice.
  *
- * Method: the bond d is the shortest atom–atom distance (periodic images included) and a1 runs along that
- * shortest vector e, a2 = e turned by +60°. Every atom, taken relative to the atom e starts from, and both
- * cell vectors must then be integer combinations of (a1, a2) within the tolerance; the cell rows become the
- * supercell (brought to HNF) and the empty sites the vacancies.
- * The pattern describes the same structure up to a rigid rotation (e onto the x axis) and translation
- * (the starting atom onto the origin), and a shift of all heights to zero.
- * Limitation: when no two atoms are nearest neighbours of the lattice they sit on, the shortest vector is
- * longer than that lattice's spacing; the result is then a coarser triangular lattice when the atoms fit
- * one, or undefined.
+ * Method: the shortest atom–atom vector e (periodic images included) suggests the lattice: a1 = e,
+ * a2 = e turned by +60°. The cell vectors, rounded to integer combinations of that guess, give the supercell
+ * rows; the lattice basis is then taken exactly from the cell, (a1, a2) = rows⁻¹·(A1, A2), and must be
+ * triangular within the tolerance (|a2 − a1 turned by 60°| ≤ tolerance). Every atom, relative to the atom e
+ * starts from, must lie within the tolerance of a lattice point; the empty sites are the vacancies.
+ * The pattern describes the same structure up to a rigid rotation (a1 onto the x axis), a translation (the
+ * starting atom onto the origin) and a common shift of the heights to zero.
+ * Limitation: when no two atoms are nearest neighbours of the lattice they sit on, e is longer than that
+ * lattice's spacing; the result is then a coarser triangular lattice when the atoms fit one, or undefined.
  */
 import { reduceSite, siteIndex, toHnf } from './hnf.ts';
 import { makePattern } from './pattern.ts';
@@ -34,30 +34,36 @@ export function sheetToPattern(sheet: Sheet, tolerance: number = RECOGNITION_TOL
   if (zMax - zMin > tolerance) return undefined;
 
   const closest = shortestSeparation(sheet, { inPlane: true });
-  // Twelve significant digits drop the rounding noise of the distance (1.6899999999999995 → 1.69).
-  const bond = Number(closest.distance.toPrecision(12));
-  if (!(bond > tolerance)) return undefined;
-  const cos = closest.vector[0] / bond, sin = closest.vector[1] / bond;
-  // Lattice coordinates (x, y) of a Cartesian vector w: turn w by −θ (θ the angle of e), then
-  // y = w'_y / (d·√3/2), x = w'_x / d − y/2, from a1 = d·(1, 0), a2 = d·(1/2, √3/2).
-  const toLattice = (wx: number, wy: number): [number, number] => {
-    const rx = cos * wx + sin * wy, ry = -sin * wx + cos * wy;
-    const y = ry / (bond * Math.sqrt(3) / 2);
-    return [rx / bond - y / 2, y];
+  const guess = closest.distance;
+  if (!(guess > tolerance)) return undefined;
+  const [ex, ey] = closest.vector;
+  // Integer coordinates of a cell vector in the guessed basis e, e turned by 60° (loosely: checked below).
+  const guessRow = (wx: number, wy: number): [number, number] => {
+    const along = (ex * wx + ey * wy) / (guess * guess), across = (ex * wy - ey * wx) / (guess * guess);
+    const y = across / (Math.sqrt(3) / 2);
+    return [Math.round(along - y / 2) + 0, Math.round(y) + 0];
   };
-  const nearInteger = (wx: number, wy: number): [number, number] | undefined => {
-    const [x, y] = toLattice(wx, wy);
-    const i = Math.round(x), j = Math.round(y);
-    // Cartesian miss |(x − i)·a1 + (y − j)·a2|.
-    const ex = x - i + (y - j) / 2, ey = (y - j) * Math.sqrt(3) / 2;
-    return Math.hypot(ex, ey) * bond <= tolerance ? [i + 0, j + 0] : undefined;
-  };
-
-  const row1 = nearInteger(sheet.cell[0][0], sheet.cell[0][1]);
-  const row2 = nearInteger(sheet.cell[1][0], sheet.cell[1][1]);
-  if (!row1 || !row2) return undefined;
-  const supercell = toHnf([row1, row2]);
+  const [[A1x, A1y], [A2x, A2y]] = sheet.cell;
+  const [p, q] = guessRow(A1x, A1y);
+  const [r, s] = guessRow(A2x, A2y);
+  const det = p * s - q * r;
+  if (det === 0) return undefined;
+  const supercell = toHnf([[p, q], [r, s]]);
   if (!supercell || supercell.a * supercell.c < n) return undefined;
+  // Exact basis from the cell: (a1; a2) = [[p, q], [r, s]]⁻¹ · (A1; A2).
+  const a1 = [(s * A1x - q * A2x) / det, (s * A1y - q * A2y) / det];
+  const a2 = [(-r * A1x + p * A2x) / det, (-r * A1y + p * A2y) / det];
+  const c60 = 0.5, s60 = Math.sqrt(3) / 2;
+  if (Math.hypot(a2[0] - (c60 * a1[0] - s60 * a1[1]), a2[1] - (s60 * a1[0] + c60 * a1[1])) > tolerance) return undefined;
+  const basisDet = a1[0] * a2[1] - a1[1] * a2[0];
+  // Twelve significant digits drop rounding noise (1.6899999999999995 → 1.69).
+  const bond = Number(Math.hypot(a1[0], a1[1]).toPrecision(12));
+  const nearInteger = (wx: number, wy: number): [number, number] | undefined => {
+    const x = (wx * a2[1] - wy * a2[0]) / basisDet, y = (a1[0] * wy - a1[1] * wx) / basisDet;
+    const i = Math.round(x), j = Math.round(y);
+    const missX = (x - i) * a1[0] + (y - j) * a2[0], missY = (x - i) * a1[1] + (y - j) * a2[1];
+    return Math.hypot(missX, missY) <= tolerance ? [i + 0, j + 0] : undefined;
+  };
 
   const [ox, oy] = cartesian(sheet, closest.from);
   const occupied = new Uint8Array(supercell.a * supercell.c);
