@@ -10,6 +10,7 @@
  * T' = Z·Λ·Zᵀ (eighTridiagonal.ts), and the eigenvectors of H are V = Q·D·Z. Eigenvalues alone use the
  * root-free QR on |e_k|², so no phases and no square roots per rotation are needed.
  */
+import { formUnitary, multiplyBasis } from './eighBackTransform.ts';
 import { HermitianTridiagonaliser } from './eighHouseholder.ts';
 import { diagonaliseTridiagonal, tridiagonalEigenvaluesRootFree } from './eighTridiagonal.ts';
 
@@ -28,12 +29,13 @@ export class HermitianEigensolver {
   private readonly off: Float64Array;
   private readonly phaseRe: Float64Array;
   private readonly phaseIm: Float64Array;
-  private readonly sumRe: Float64Array;
-  private readonly sumIm: Float64Array;
   private readonly order: Int32Array;
-  // Q, then the basis rows (Q·D)ᵀ rotated by the QR sweeps (row-major n×n, split).
-  private readonly rowsRe: Float64Array;
-  private readonly rowsIm: Float64Array;
+  // Zᵀ: rows rotated by the QR sweeps from the identity (n×n real, row-major; row i ↔ diagonal slot i).
+  private readonly rows: Float64Array;
+  // Q (complex interleaved, see eighBackTransform.ts) and its scratch sums.
+  private readonly unitary: Float64Array;
+  private readonly sums: Float64Array;
+  private readonly rotations: Float64Array;
 
   constructor(n: number) {
     this.n = n;
@@ -42,11 +44,11 @@ export class HermitianEigensolver {
     this.off = new Float64Array(n);
     this.phaseRe = new Float64Array(n);
     this.phaseIm = new Float64Array(n);
-    this.sumRe = new Float64Array(n);
-    this.sumIm = new Float64Array(n);
     this.order = new Int32Array(n);
-    this.rowsRe = new Float64Array(n * n);
-    this.rowsIm = new Float64Array(n * n);
+    this.rows = new Float64Array(n * n);
+    this.unitary = new Float64Array(2 * n * n);
+    this.sums = new Float64Array(4 * n);
+    this.rotations = new Float64Array(2 * n);
   }
 
   /** Ascending eigenvalues into out (length ≥ n); returns out. */
@@ -87,15 +89,14 @@ export class HermitianEigensolver {
     if (n === 0) return;
     const reduction = this.reduction;
     const scale = reduction.reduce(re, im);
-    const rowsRe = this.rowsRe;
-    const rowsIm = this.rowsIm;
+    const rows = this.rows;
     let converged = !Number.isNaN(scale);
     if (converged) {
       this.diag.set(reduction.diag);
       this.phases();
-      this.accumulateQ(rowsRe, rowsIm);
-      this.basisRows(rowsRe, rowsIm);
-      converged = diagonaliseTridiagonal(this.diag, this.off, n, rowsRe, rowsIm);
+      rows.fill(0);
+      for (let i = 0; i < n; i++) rows[i * n + i] = 1;
+      converged = diagonaliseTridiagonal(this.diag, this.off, n, rows, this.rotations);
     }
     if (!converged) {
       values.fill(NaN, 0, n);
@@ -114,15 +115,9 @@ export class HermitianEigensolver {
       }
       order[j + 1] = i;
     }
-    for (let m = 0; m < n; m++) {
-      const src = order[m];
-      values[m] = diag[src] * scale;
-      const row = src * n;
-      for (let r = 0; r < n; r++) {
-        vecRe[r * n + m] = rowsRe[row + r];
-        vecIm[r * n + m] = rowsIm[row + r];
-      }
-    }
+    for (let m = 0; m < n; m++) values[m] = diag[order[m]] * scale;
+    formUnitary(n, reduction.tau, reduction.reflRe, reduction.reflIm, this.unitary, this.sums);
+    multiplyBasis(n, this.unitary, this.phaseRe, this.phaseIm, rows, order, vecRe, vecIm);
   }
 
   /** Real off-diagonal |e_k| and the phases d_k of D (d₀ = 1, d_{k+1} = d_k·e_k/|e_k|). */
@@ -156,75 +151,5 @@ export class HermitianEigensolver {
       this.phaseIm[k + 1] = dIm;
     }
     this.off[n - 1] = 0;
-  }
-
-  /** Q = P₀·P₁·…·P_{n−2} (row-major), applied right to left so each P_k touches only a trailing block. */
-  private accumulateQ(qRe: Float64Array, qIm: Float64Array): void {
-    const n = this.n;
-    const { tau, reflRe, reflIm } = this.reduction;
-    const sRe = this.sumRe;
-    const sIm = this.sumIm;
-    qRe.fill(0);
-    qIm.fill(0);
-    for (let i = 0; i < n; i++) qRe[i * n + i] = 1;
-    for (let k = n - 2; k >= 0; k--) {
-      const t = tau[k];
-      if (t === 0) continue;
-      const first = k + 1;
-      const uRow = k * n;
-      // s = uᴴ·Q over columns first…n−1, then Q ← Q − τ·u·s.
-      sRe.fill(0, first, n);
-      sIm.fill(0, first, n);
-      for (let r = first; r < n; r++) {
-        const urRe = reflRe[uRow + r];
-        const urIm = reflIm[uRow + r];
-        const row = r * n;
-        for (let c = first; c < n; c++) {
-          const a = qRe[row + c];
-          const b = qIm[row + c];
-          sRe[c] += urRe * a + urIm * b;
-          sIm[c] += urRe * b - urIm * a;
-        }
-      }
-      for (let r = first; r < n; r++) {
-        const tRe = t * reflRe[uRow + r];
-        const tIm = t * reflIm[uRow + r];
-        const row = r * n;
-        for (let c = first; c < n; c++) {
-          const a = sRe[c];
-          const b = sIm[c];
-          qRe[row + c] -= tRe * a - tIm * b;
-          qIm[row + c] -= tRe * b + tIm * a;
-        }
-      }
-    }
-  }
-
-  /** Turns Q into the basis rows (Q·D)ᵀ in place: row m is column m of Q times d_m. */
-  private basisRows(wRe: Float64Array, wIm: Float64Array): void {
-    const n = this.n;
-    for (let m = 0; m < n; m++) {
-      for (let r = 0; r < m; r++) {
-        const a = m * n + r;
-        const b = r * n + m;
-        let t = wRe[a];
-        wRe[a] = wRe[b];
-        wRe[b] = t;
-        t = wIm[a];
-        wIm[a] = wIm[b];
-        wIm[b] = t;
-      }
-    }
-    for (let m = 0; m < n; m++) {
-      const dRe = this.phaseRe[m];
-      const dIm = this.phaseIm[m];
-      const row = m * n;
-      for (let r = 0; r < n; r++) {
-        const a = wRe[row + r];
-        const b = wIm[row + r];
-        wRe[row + r] = a * dRe - b * dIm;
-        wIm[row + r] = a * dIm + b * dRe;
-      }
-    }
   }
 }

@@ -3,9 +3,9 @@
  * symmetric QR step with a Wilkinson shift (Golub & Van Loan, Matrix Computations, 4th ed., §8.3).
  *
  * Layout: `diag[i]` (i = 0…n−1) is T[i][i]; `off[i]` (i = 0…n−2) is T[i][i+1] = T[i+1][i].
- * Basis rows (eigenvector variant): `rowsRe`/`rowsIm` are n×n row-major; row i holds the current basis vector
- * that belongs to index i of T, so a rotation in the (i, i+1) plane touches two contiguous rows.
- * Both arrays are overwritten: `diag` ends with the (unsorted) eigenvalues, `off` with zeros.
+ * Basis rows (eigenvector variant): `rows` is n×n real row-major; row i holds the current basis vector that
+ * belongs to index i of T, so a rotation in the (i, i+1) plane touches two contiguous rows.
+ * The arrays are overwritten: `diag` ends with the (unsorted) eigenvalues, `off` with zeros.
  * Callers pre-scale T so that its largest entry lies in [2^−100, 2^100] (squares neither overflow nor underflow).
  */
 
@@ -33,11 +33,12 @@ function negligible(diag: Float64Array, off: Float64Array, i: number): boolean {
 
 /**
  * One implicit QR step on the unreduced block l…m (Golub & Van Loan §8.3, implicit symmetric QR step), chasing the bulge from the top.
- * When `rowsRe` is given the same rotations are applied to the basis rows.
+ * When `rows` is given the rotations are recorded in `rotations` (c_k at 2k, s_k at 2k + 1) and then applied
+ * to the basis rows.
  */
 function qrStep(
   diag: Float64Array, off: Float64Array, l: number, m: number, n: number,
-  rowsRe: Float64Array | null, rowsIm: Float64Array | null,
+  rows: Float64Array | null, rotations: Float64Array | null,
 ): void {
   // Wilkinson shift: eigenvalue of the trailing 2×2 block closer to its last diagonal entry.
   const bLast = off[m - 1];
@@ -71,19 +72,47 @@ function qrStep(
       z = s * bNext;
       off[k + 1] = c * bNext;
     }
-    if (rowsRe !== null && rowsIm !== null) {
-      const p = k * n;
-      const q = p + n;
-      for (let j = 0; j < n; j++) {
-        const uRe = rowsRe[p + j];
-        const vRe = rowsRe[q + j];
-        rowsRe[p + j] = c * uRe + s * vRe;
-        rowsRe[q + j] = c * vRe - s * uRe;
-        const uIm = rowsIm[p + j];
-        const vIm = rowsIm[q + j];
-        rowsIm[p + j] = c * uIm + s * vIm;
-        rowsIm[q + j] = c * vIm - s * uIm;
-      }
+    if (rotations !== null) {
+      rotations[2 * k] = c;
+      rotations[2 * k + 1] = s;
+    }
+  }
+  if (rows !== null && rotations !== null) applyRotations(rows, n, l, m, rotations);
+}
+
+/**
+ * Applies the recorded rotations k = l…m−1 (rows k, k+1 ← c·row_k + s·row_{k+1}, c·row_{k+1} − s·row_k) in order,
+ * two at a time: rotations k and k+1 share row k+1, so each pass loads and stores three rows instead of four.
+ */
+function applyRotations(rows: Float64Array, n: number, l: number, m: number, rotations: Float64Array): void {
+  let k = l;
+  for (; k + 1 < m; k += 2) {
+    const c1 = rotations[2 * k];
+    const s1 = rotations[2 * k + 1];
+    const c2 = rotations[2 * k + 2];
+    const s2 = rotations[2 * k + 3];
+    // `| 0` keeps the index arithmetic in int32 without overflow checks (indices < n², far from 2^31).
+    for (let p = k * n, end = p + n; p < end; p = (p + 1) | 0) {
+      const q = (p + n) | 0;
+      const t = (q + n) | 0;
+      const a = rows[p];
+      const b = rows[q];
+      const d = rows[t];
+      const bRotated = c1 * b - s1 * a;
+      rows[p] = c1 * a + s1 * b;
+      rows[q] = c2 * bRotated + s2 * d;
+      rows[t] = c2 * d - s2 * bRotated;
+    }
+  }
+  if (k < m) {
+    const c = rotations[2 * k];
+    const s = rotations[2 * k + 1];
+    for (let p = k * n, end = p + n; p < end; p = (p + 1) | 0) {
+      const q = (p + n) | 0;
+      const u = rows[p];
+      const v = rows[q];
+      rows[p] = c * u + s * v;
+      rows[q] = c * v - s * u;
     }
   }
 }
@@ -149,12 +178,13 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
 }
 
 /**
- * Diagonalises the tridiagonal T in place. Returns false when the iteration did not converge
- * within 30 sweeps per eigenvalue (the caller then reports its NaN sentinel).
+ * Diagonalises the tridiagonal T in place. With `rows` (basis rows, see the layout above) the same rotations
+ * are applied to them; `rotations` is then required scratch of length ≥ 2n. Returns false when the iteration
+ * did not converge within 30 sweeps per eigenvalue (the caller then reports its NaN sentinel).
  */
 export function diagonaliseTridiagonal(
   diag: Float64Array, off: Float64Array, n: number,
-  rowsRe: Float64Array | null = null, rowsIm: Float64Array | null = null,
+  rows: Float64Array | null = null, rotations: Float64Array | null = null,
 ): boolean {
   let sweeps = 0;
   const maxSweeps = SWEEPS_PER_VALUE * n;
@@ -169,7 +199,7 @@ export function diagonaliseTridiagonal(
     while (l > 0 && !negligible(diag, off, l - 1)) l--;
     if (l > 0) off[l - 1] = 0;
     if (++sweeps > maxSweeps) return false;
-    qrStep(diag, off, l, m, n, rowsRe, rowsIm);
+    qrStep(diag, off, l, m, n, rows, rotations);
   }
   return true;
 }

@@ -1,0 +1,142 @@
+/**
+ * Back-transformation of tridiagonal eigenvectors to the original basis: V = Q·D·Z (see eigh.ts).
+ *
+ * Layout. `q` is Q, n×n row-major, complex interleaved: (r, c) at q[2(r·n + c)] (re) and q[2(r·n + c) + 1] (im).
+ * Reflector k is u_k in row k of `reflRe`/`reflIm` (entries k+1…n−1) with τ_k in `tau` (P_k = I − τ_k·u_k·u_kᴴ).
+ * `sums` is scratch of length 4n: per column c, [s_c re, s_c im, s'_c re, s'_c im].
+ */
+
+/**
+ * Q = P₀·P₁·…·P_{n−2}, applied right to left (Q ← P_k·Q, k = n−2…0) so each P_k touches only the trailing
+ * block k+1…n−1 (Golub & Van Loan, Matrix Computations, 4th ed., §5.1, backward accumulation).
+ * Each step needs s = u_kᴴ·Q; the update of step k and the sums s' of the next reflector share one pass.
+ */
+export function formUnitary(
+  n: number, tau: Float64Array, reflRe: Float64Array, reflIm: Float64Array, q: Float64Array, sums: Float64Array,
+): void {
+  q.fill(0, 0, 2 * n * n);
+  for (let i = 0; i < n; i++) q[2 * (i * n + i)] = 1;
+  let k = nextReflector(tau, n - 2);
+  if (k < 0) return;
+  // s = u_kᴴ·Q for the first reflector applied: Q is still the identity there.
+  for (let c = k + 1; c < n; c++) {
+    sums[4 * c] = reflRe[k * n + c];
+    sums[4 * c + 1] = -reflIm[k * n + c];
+  }
+  while (k >= 0) {
+    const next = nextReflector(tau, k - 1);
+    const t = tau[k];
+    const uRow = k * n;
+    const first = k + 1;
+    if (next >= 0) {
+      // Rows next+1…k of Q are still identity rows, so s'_c = conj(u'_c) there; the pass adds rows k+1…n−1.
+      const vRow = next * n;
+      for (let c = next + 1; c <= k; c++) {
+        sums[4 * c + 2] = reflRe[vRow + c];
+        sums[4 * c + 3] = -reflIm[vRow + c];
+      }
+      for (let c = first; c < n; c++) {
+        sums[4 * c + 2] = 0;
+        sums[4 * c + 3] = 0;
+      }
+      for (let r = first; r < n; r++) {
+        const tuRe = t * reflRe[uRow + r];
+        const tuIm = t * reflIm[uRow + r];
+        const vRe = reflRe[vRow + r];
+        const vIm = reflIm[vRow + r];
+        // `| 0` keeps the index arithmetic in int32 without overflow checks (indices < 4n², far from 2^31).
+        for (let a = 2 * (r * n + first), l = 4 * first, end = 2 * (r * n + n); a < end; a = (a + 2) | 0, l = (l + 4) | 0) {
+          const sRe = sums[l];
+          const sIm = sums[(l + 1) | 0];
+          const x = q[a] - (tuRe * sRe - tuIm * sIm);
+          const y = q[(a + 1) | 0] - (tuRe * sIm + tuIm * sRe);
+          q[a] = x;
+          q[(a + 1) | 0] = y;
+          sums[(l + 2) | 0] += vRe * x + vIm * y;
+          sums[(l + 3) | 0] += vRe * y - vIm * x;
+        }
+      }
+      for (let c = next + 1; c < n; c++) {
+        sums[4 * c] = sums[4 * c + 2];
+        sums[4 * c + 1] = sums[4 * c + 3];
+      }
+    } else {
+      for (let r = first; r < n; r++) {
+        const tuRe = t * reflRe[uRow + r];
+        const tuIm = t * reflIm[uRow + r];
+        for (let a = 2 * (r * n + first), l = 4 * first, end = 2 * (r * n + n); a < end; a = (a + 2) | 0, l = (l + 4) | 0) {
+          const sRe = sums[l];
+          const sIm = sums[(l + 1) | 0];
+          q[a] -= tuRe * sRe - tuIm * sIm;
+          q[(a + 1) | 0] -= tuRe * sIm + tuIm * sRe;
+        }
+      }
+    }
+    k = next;
+  }
+}
+
+/** Largest k' ≤ k with τ_k' ≠ 0, or −1. */
+function nextReflector(tau: Float64Array, k: number): number {
+  while (k >= 0 && tau[k] === 0) k--;
+  return k;
+}
+
+/**
+ * V = Q·D·Z with Z real, written to vecRe/vecIm[r·n + m]: eigenvector m is row order[m] of `rows` (Zᵀ, n×n
+ * real row-major). Scales Q's columns by the phases d_i in place first. Each entry is a dot product of two
+ * contiguous rows; two eigenvectors share each pass so every load of Q serves four multiply-adds.
+ */
+export function multiplyBasis(
+  n: number, q: Float64Array, phaseRe: Float64Array, phaseIm: Float64Array, rows: Float64Array,
+  order: Int32Array, vecRe: Float64Array, vecIm: Float64Array,
+): void {
+  for (let r = 0; r < n; r++) {
+    for (let i = 0, a = 2 * r * n; i < n; i++, a += 2) {
+      const x = q[a];
+      const y = q[a + 1];
+      q[a] = x * phaseRe[i] - y * phaseIm[i];
+      q[a + 1] = x * phaseIm[i] + y * phaseRe[i];
+    }
+  }
+  for (let r = 0; r < n; r++) {
+    const qRow = 2 * r * n;
+    const out = r * n;
+    let m = 0;
+    for (; m + 1 < n; m += 2) {
+      const first = order[m] * n;
+      const second = order[m + 1] * n;
+      let aRe = 0;
+      let aIm = 0;
+      let bRe = 0;
+      let bIm = 0;
+      // `| 0` keeps the index arithmetic in int32 without overflow checks (indices < 2n², far from 2^31).
+      for (let i = 0, a = qRow; i < n; i = (i + 1) | 0, a = (a + 2) | 0) {
+        const x = q[a];
+        const y = q[(a + 1) | 0];
+        const u = rows[(first + i) | 0];
+        const v = rows[(second + i) | 0];
+        aRe += x * u;
+        aIm += y * u;
+        bRe += x * v;
+        bIm += y * v;
+      }
+      vecRe[out + m] = aRe;
+      vecIm[out + m] = aIm;
+      vecRe[out + m + 1] = bRe;
+      vecIm[out + m + 1] = bIm;
+    }
+    if (m < n) {
+      const first = order[m] * n;
+      let aRe = 0;
+      let aIm = 0;
+      for (let i = 0, a = qRow; i < n; i = (i + 1) | 0, a = (a + 2) | 0) {
+        const u = rows[(first + i) | 0];
+        aRe += q[a] * u;
+        aIm += q[(a + 1) | 0] * u;
+      }
+      vecRe[out + m] = aRe;
+      vecIm[out + m] = aIm;
+    }
+  }
+}
