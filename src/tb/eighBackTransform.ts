@@ -39,7 +39,9 @@ export function formUnitary(
         sums[4 * c + 2] = 0;
         sums[4 * c + 3] = 0;
       }
-      for (let r = first; r < n; r++) {
+      let r = first;
+      for (; r + 1 < n; r += 2) updatePairAndSum(n, q, sums, first, r, t, reflRe, reflIm, uRow, vRow);
+      if (r < n) {
         const tuRe = t * reflRe[uRow + r];
         const tuIm = t * reflIm[uRow + r];
         const vRe = reflRe[vRow + r];
@@ -73,6 +75,40 @@ export function formUnitary(
       }
     }
     k = next;
+  }
+}
+
+/**
+ * Rows r and r+1 of the fused pass: Q_rc −= τ·u_r·s_c, then s'_c += conj(v_r)·Q_rc, for columns first…n−1.
+ * Pairing rows halves the loads and stores of the sums per entry.
+ */
+function updatePairAndSum(
+  n: number, q: Float64Array, sums: Float64Array, first: number, r: number, t: number,
+  reflRe: Float64Array, reflIm: Float64Array, uRow: number, vRow: number,
+): void {
+  const tuRe = t * reflRe[uRow + r];
+  const tuIm = t * reflIm[uRow + r];
+  const vRe = reflRe[vRow + r];
+  const vIm = reflIm[vRow + r];
+  const tu2Re = t * reflRe[uRow + r + 1];
+  const tu2Im = t * reflIm[uRow + r + 1];
+  const v2Re = reflRe[vRow + r + 1];
+  const v2Im = reflIm[vRow + r + 1];
+  // `| 0` keeps the index arithmetic in int32 without overflow checks (indices < 4n², far from 2^31).
+  let b = 2 * ((r + 1) * n + first);
+  for (let a = 2 * (r * n + first), l = 4 * first, end = 2 * (r * n + n); a < end; a = (a + 2) | 0, b = (b + 2) | 0, l = (l + 4) | 0) {
+    const sRe = sums[l];
+    const sIm = sums[(l + 1) | 0];
+    const x = q[a] - (tuRe * sRe - tuIm * sIm);
+    const y = q[(a + 1) | 0] - (tuRe * sIm + tuIm * sRe);
+    q[a] = x;
+    q[(a + 1) | 0] = y;
+    const x2 = q[b] - (tu2Re * sRe - tu2Im * sIm);
+    const y2 = q[(b + 1) | 0] - (tu2Re * sIm + tu2Im * sRe);
+    q[b] = x2;
+    q[(b + 1) | 0] = y2;
+    sums[(l + 2) | 0] += vRe * x + vIm * y + v2Re * x2 + v2Im * y2;
+    sums[(l + 3) | 0] += vRe * y - vIm * x + v2Re * y2 - v2Im * x2;
   }
 }
 
