@@ -127,21 +127,26 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
   let sweeps = 0;
   const maxSweeps = SWEEPS_PER_VALUE * n;
   let m = n - 1;
+  // Start of the unreduced block that ends at m, or −1 when it must be searched for again.
+  let l = -1;
   while (m > 0) {
     // Deflation test b² ≤ ε²·(|a_i| + |a_{i+1}|)² or b² ≤ floor², the square of the test in `negligible`.
     let size = Math.abs(diag[m - 1]) + Math.abs(diag[m]);
     if (offSquared[m - 1] <= eps2 * size * size || offSquared[m - 1] <= FLOOR_SQUARED) {
       offSquared[m - 1] = 0;
       m--;
+      if (m <= l) l = -1;
       continue;
     }
-    let l = m - 1;
-    while (l > 0) {
-      size = Math.abs(diag[l - 1]) + Math.abs(diag[l]);
-      if (offSquared[l - 1] <= eps2 * size * size || offSquared[l - 1] <= FLOOR_SQUARED) break;
-      l--;
+    if (l < 0) {
+      l = m - 1;
+      while (l > 0) {
+        size = Math.abs(diag[l - 1]) + Math.abs(diag[l]);
+        if (offSquared[l - 1] <= eps2 * size * size || offSquared[l - 1] <= FLOOR_SQUARED) break;
+        l--;
+      }
+      if (l > 0) offSquared[l - 1] = 0;
     }
-    if (l > 0) offSquared[l - 1] = 0;
     if (++sweeps > maxSweeps) return false;
     // Wilkinson shift from the trailing 2×2 block, as in qrStep.
     const bb = offSquared[m - 1];
@@ -151,19 +156,26 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
     // γ-form of the shifted QR step (Parlett, ch. 8): γ is the running diagonal entry of the rotated T − σ,
     // p = γ²/c² the square of the entry the next rotation eliminates against. Written with
     // ν = r·γ_next = p·(α − σ) − b²·γ so that the divisions 1/r and 1/(r·p) do not wait on each other.
+    // Splits inside the block are detected during the sweep, off the division chain's critical path.
     let c = 1;
     let s = 0;
     let gamma = diag[l] - shift;
     let p = gamma * gamma;
+    let split = -1;
     for (let i = l; i < m; i++) {
       const b2 = offSquared[i];
       const r = p + b2;
       const inverse = 1 / r;
-      if (i > l) offSquared[i - 1] = s * r;
       const alpha = diag[i + 1];
       const nu = p * (alpha - shift) - b2 * gamma;
       const nextGamma = nu * inverse;
       diag[i] = gamma + (alpha - nextGamma);
+      if (i > l) {
+        const settled = s * r;
+        offSquared[i - 1] = settled;
+        const around = Math.abs(diag[i - 1]) + Math.abs(diag[i]);
+        if (settled <= eps2 * around * around || settled <= FLOOR_SQUARED) split = i - 1;
+      }
       // p_next = γ_next²/c_next = ν²/(r·p); when p = 0 (c = 0) the limit is c_previous·b² (Parlett, ch. 8).
       const nextP = p !== 0 ? (nu * nu) / (r * p) : c * b2;
       c = p * inverse;
@@ -173,6 +185,10 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
     }
     offSquared[m - 1] = s * p;
     diag[m] = shift + gamma;
+    if (split >= 0) {
+      offSquared[split] = 0;
+      l = split + 1;
+    }
   }
   return true;
 }

@@ -40,6 +40,26 @@ describe('tridiagonal kernels', () => {
     }
   });
 
+  it('block-diagonal T (zero couplings between 2×2 blocks) gives the union of the blocks\' eigenvalues', () => {
+    // Analytic: a 2×2 block [[a, b], [b, d]] has (a+d)/2 ± √(((a−d)/2)² + b²) (common practice).
+    const blocks = [[1, 0.5, -2], [0, 3, 0], [4, 1e-9, 4], [-1, 2, 5], [2, 0, 2]];
+    const diag: number[] = [];
+    const off: number[] = [];
+    const expected: number[] = [];
+    for (const [a, b, d] of blocks) {
+      if (diag.length > 0) off.push(0);
+      diag.push(a, d);
+      off.push(b);
+      const mean = (a + d) / 2;
+      const radius = Math.hypot((a - d) / 2, b);
+      expected.push(mean - radius, mean + radius);
+    }
+    expected.sort((x, y) => x - y);
+    for (const values of bothKernels(diag, off)) {
+      for (let k = 0; k < expected.length; k++) expect(Math.abs(values[k] - expected[k])).toBeLessThanOrEqual(1e-14);
+    }
+  });
+
   it('rotations keep the basis rows orthonormal and diagonalise T (TZ = ZΛ)', () => {
     // Invariant check (common practice): rows of the rotated identity are the eigenvectors of T.
     const n = 30;
