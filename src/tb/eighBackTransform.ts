@@ -121,7 +121,7 @@ function nextReflector(tau: Float64Array, k: number): number {
 /**
  * V = Q·D·Z with Z real, written to vecRe/vecIm[r·n + m]: eigenvector m is row order[m] of `rows` (Zᵀ, n×n
  * real row-major). Scales Q's columns by the phases d_i in place first. Each entry is a dot product of two
- * contiguous rows; two eigenvectors share each pass so every load of Q serves four multiply-adds.
+ * contiguous rows; four eigenvectors share each pass so every load of Q serves eight multiply-adds.
  */
 export function multiplyBasis(
   n: number, q: Float64Array, phaseRe: Float64Array, phaseIm: Float64Array, rows: Float64Array,
@@ -139,33 +139,12 @@ export function multiplyBasis(
     const qRow = 2 * r * n;
     const out = r * n;
     let m = 0;
-    for (; m + 1 < n; m += 2) {
+    for (; m + 3 < n; m += 4) dotFour(n, q, qRow, rows, order, m, vecRe, vecIm, out);
+    for (; m < n; m++) {
       const first = order[m] * n;
-      const second = order[m + 1] * n;
       let aRe = 0;
       let aIm = 0;
-      let bRe = 0;
-      let bIm = 0;
       // `| 0` keeps the index arithmetic in int32 without overflow checks (indices < 2n², far from 2^31).
-      for (let i = 0, a = qRow; i < n; i = (i + 1) | 0, a = (a + 2) | 0) {
-        const x = q[a];
-        const y = q[(a + 1) | 0];
-        const u = rows[(first + i) | 0];
-        const v = rows[(second + i) | 0];
-        aRe += x * u;
-        aIm += y * u;
-        bRe += x * v;
-        bIm += y * v;
-      }
-      vecRe[out + m] = aRe;
-      vecIm[out + m] = aIm;
-      vecRe[out + m + 1] = bRe;
-      vecIm[out + m + 1] = bIm;
-    }
-    if (m < n) {
-      const first = order[m] * n;
-      let aRe = 0;
-      let aIm = 0;
       for (let i = 0, a = qRow; i < n; i = (i + 1) | 0, a = (a + 2) | 0) {
         const u = rows[(first + i) | 0];
         aRe += q[a] * u;
@@ -175,4 +154,48 @@ export function multiplyBasis(
       vecIm[out + m] = aIm;
     }
   }
+}
+
+/** Entries m…m+3 of row r of V (see multiplyBasis), with eight independent accumulators. */
+function dotFour(
+  n: number, q: Float64Array, qRow: number, rows: Float64Array, order: Int32Array, m: number,
+  vecRe: Float64Array, vecIm: Float64Array, out: number,
+): void {
+  const z0 = order[m] * n;
+  const z1 = order[m + 1] * n;
+  const z2 = order[m + 2] * n;
+  const z3 = order[m + 3] * n;
+  let re0 = 0;
+  let im0 = 0;
+  let re1 = 0;
+  let im1 = 0;
+  let re2 = 0;
+  let im2 = 0;
+  let re3 = 0;
+  let im3 = 0;
+  // `| 0` keeps the index arithmetic in int32 without overflow checks (indices < 2n², far from 2^31).
+  for (let i = 0, a = qRow; i < n; i = (i + 1) | 0, a = (a + 2) | 0) {
+    const x = q[a];
+    const y = q[(a + 1) | 0];
+    const u0 = rows[(z0 + i) | 0];
+    const u1 = rows[(z1 + i) | 0];
+    const u2 = rows[(z2 + i) | 0];
+    const u3 = rows[(z3 + i) | 0];
+    re0 += x * u0;
+    im0 += y * u0;
+    re1 += x * u1;
+    im1 += y * u1;
+    re2 += x * u2;
+    im2 += y * u2;
+    re3 += x * u3;
+    im3 += y * u3;
+  }
+  vecRe[out + m] = re0;
+  vecIm[out + m] = im0;
+  vecRe[out + m + 1] = re1;
+  vecIm[out + m + 1] = im1;
+  vecRe[out + m + 2] = re2;
+  vecIm[out + m + 2] = im2;
+  vecRe[out + m + 3] = re3;
+  vecIm[out + m + 3] = im3;
 }
