@@ -61,7 +61,7 @@ const malformed: fc.Arbitrary<string> = fc.oneof(
     return JSON.stringify(root);
   }),
   // An unknown field at the top or inside onsite/hopping.
-  fc.tuple(fc.constantFrom([], ['onsite'], ['hopping']), fc.string({ minLength: 1, maxLength: 12 }), fc.jsonValue()).filter(
+  fc.tuple(fc.constantFrom<string[]>([], ['onsite'], ['hopping']), fc.string({ minLength: 1, maxLength: 12 }), fc.jsonValue()).filter(
     ([path, key]) => !['name', 'source', 'provenance', 'onsite', 'hopping', 'd0', 'exponent', 'cutoff', 's', 'p', 'ss_sigma', 'sp_sigma', 'pp_sigma', 'pp_pi'].includes(key),
   ).map(([path, key, value]) => {
     const root = clone();
@@ -74,7 +74,7 @@ const malformed: fc.Arbitrary<string> = fc.oneof(
     setAt(root, path, value);
     return JSON.stringify(root);
   }),
-  fc.tuple(fc.constantFrom(['name'], ['source'], ['provenance']), notString).map(([path, value]) => {
+  fc.tuple(fc.constantFrom<string[]>(['name'], ['source'], ['provenance']), notString).map(([path, value]) => {
     const root = clone();
     setAt(root, path, value);
     return JSON.stringify(root);
