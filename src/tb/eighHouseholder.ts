@@ -12,8 +12,10 @@
  *
  * Each step applies A₂₂ ← P·A₂₂·P = A₂₂ − u·wᴴ − w·uᴴ with p = τ·A₂₂·u, w = p − (τ·uᴴp/2)·u, on the lower
  * triangle only. The rank-2 update of step k and the product A₂₂·u_{k+1} of step k+1 share one pass over the
- * triangle (column k+1 is updated first, so u_{k+1} is known before the pass).
+ * triangle (column k+1 is updated first, so u_{k+1} is known before the pass; eighTriangle.ts).
  */
+
+import { productOnly, updateAndProduct, updateOnly } from './eighTriangle.ts';
 
 /** Below this, a sum of squares may have lost precision to underflow (2^−1022/ε ≈ 2^−970); rescale first. */
 const SQUARES_UNSAFE = 2 ** -900;
@@ -65,7 +67,7 @@ export class HermitianTridiagonaliser {
     const tau = this.tau;
     this.diag[0] = work[0];
     if (n === 1) return scale;
-    if (this.reflector(0)) this.productOnly(1);
+    if (this.reflector(0)) productOnly(n, this.work, this.lanes, 1);
     for (let k = 0; k + 1 < n; k++) {
       const first = k + 1;
       const updating = tau[k] !== 0;
@@ -76,9 +78,9 @@ export class HermitianTridiagonaliser {
       }
       this.diag[first] = work[2 * (first * n + first)];
       const producing = first + 1 < n && this.reflector(first);
-      if (updating && producing) this.updateAndProduct(k);
-      else if (updating) this.updateOnly(k);
-      else if (producing) this.productOnly(first + 1);
+      if (updating && producing) updateAndProduct(n, work, this.lanes, k + 2);
+      else if (updating) updateOnly(n, work, this.lanes, k + 2);
+      else if (producing) productOnly(n, work, this.lanes, first + 1);
     }
     return scale;
   }
@@ -251,179 +253,5 @@ export class HermitianTridiagonaliser {
       work[at] -= uiRe * wcRe + uiIm * wcIm + wiRe * ucRe + wiIm * ucIm;
       work[at + 1] -= uiIm * wcRe - uiRe * wcIm + wiIm * ucRe - wiRe * ucIm;
     }
-  }
-
-  /** q = A₂₂·v over rows/columns start…n−1 (Hermitian product from the lower triangle): row i gives q_i += A_ij v_j and q_j += conj(A_ij) v_i. */
-  private productOnly(start: number): void {
-    const n = this.n;
-    const work = this.work;
-    const lanes = this.lanes;
-    for (let j = 8 * start, end = 8 * n; j < end; j += 8) {
-      lanes[j + 6] = 0;
-      lanes[j + 7] = 0;
-    }
-    for (let i = start; i < n; i++) {
-      const li = 8 * i;
-      const viRe = lanes[li + 4];
-      const viIm = lanes[li + 5];
-      let sRe = 0;
-      let sIm = 0;
-      for (let a = 2 * (i * n + start), l = 8 * start; l < li; a = (a + 2) | 0, l = (l + 8) | 0) {
-        const x = work[a];
-        const y = work[(a + 1) | 0];
-        const vjRe = lanes[(l + 4) | 0];
-        const vjIm = lanes[(l + 5) | 0];
-        sRe += x * vjRe - y * vjIm;
-        sIm += x * vjIm + y * vjRe;
-        lanes[(l + 6) | 0] += x * viRe + y * viIm;
-        lanes[(l + 7) | 0] += x * viIm - y * viRe;
-      }
-      const d = work[2 * (i * n + i)];
-      lanes[li + 6] += sRe + d * viRe;
-      lanes[li + 7] += sIm + d * viIm;
-    }
-  }
-
-  /** Rank-2 update of step k over rows/columns k+2…n−1 (no product: step k+1 needs no reflection). */
-  private updateOnly(k: number): void {
-    const n = this.n;
-    const work = this.work;
-    const lanes = this.lanes;
-    const start = k + 2;
-    for (let i = start; i < n; i++) {
-      const li = 8 * i;
-      const uiRe = lanes[li];
-      const uiIm = lanes[li + 1];
-      const wiRe = lanes[li + 2];
-      const wiIm = lanes[li + 3];
-      for (let a = 2 * (i * n + start), l = 8 * start; l <= li; a = (a + 2) | 0, l = (l + 8) | 0) {
-        const ujRe = lanes[l];
-        const ujIm = lanes[(l + 1) | 0];
-        const wjRe = lanes[(l + 2) | 0];
-        const wjIm = lanes[(l + 3) | 0];
-        work[a] -= uiRe * wjRe + uiIm * wjIm + wiRe * ujRe + wiIm * ujIm;
-        work[(a + 1) | 0] -= uiIm * wjRe - uiRe * wjIm + wiIm * ujRe - wiRe * ujIm;
-      }
-    }
-  }
-
-  /**
-   * Rank-2 update of step k over rows/columns k+2…n−1 fused with q = A₂₂·v (v = u_{k+1}) on the updated
-   * entries: one pass over the triangle instead of two. Rows go in pairs so that each load of u_j, w_j, v_j
-   * and each update of q_j serves two matrix entries (typed-array accesses, not flops, bound this loop in V8).
-   */
-  private updateAndProduct(k: number): void {
-    const n = this.n;
-    const lanes = this.lanes;
-    const start = k + 2;
-    for (let j = 8 * start, end = 8 * n; j < end; j += 8) {
-      lanes[j + 6] = 0;
-      lanes[j + 7] = 0;
-    }
-    let i = start;
-    for (; i + 1 < n; i += 2) this.updateAndProductPair(start, i);
-    if (i < n) this.updateAndProductRow(start, i);
-  }
-
-  /** Rows i and i+1 of updateAndProduct (columns start…i+1 of the lower triangle). */
-  private updateAndProductPair(start: number, i: number): void {
-    const n = this.n;
-    const work = this.work;
-    const lanes = this.lanes;
-    const li = 8 * i;
-    const uiRe = lanes[li];
-    const uiIm = lanes[li + 1];
-    const wiRe = lanes[li + 2];
-    const wiIm = lanes[li + 3];
-    const viRe = lanes[li + 4];
-    const viIm = lanes[li + 5];
-    const lk = li + 8;
-    const ukRe = lanes[lk];
-    const ukIm = lanes[lk + 1];
-    const wkRe = lanes[lk + 2];
-    const wkIm = lanes[lk + 3];
-    const vkRe = lanes[lk + 4];
-    const vkIm = lanes[lk + 5];
-    let sRe = 0;
-    let sIm = 0;
-    let tRe = 0;
-    let tIm = 0;
-    let a = 2 * (i * n + start);
-    let b = a + 2 * n;
-    // `| 0` keeps the index arithmetic in int32 without overflow checks (indices are < 8n², far from 2^31).
-    for (let l = 8 * start; l < li; a = (a + 2) | 0, b = (b + 2) | 0, l = (l + 8) | 0) {
-      const ujRe = lanes[l];
-      const ujIm = lanes[(l + 1) | 0];
-      const wjRe = lanes[(l + 2) | 0];
-      const wjIm = lanes[(l + 3) | 0];
-      const vjRe = lanes[(l + 4) | 0];
-      const vjIm = lanes[(l + 5) | 0];
-      const x = work[a] - (uiRe * wjRe + uiIm * wjIm + wiRe * ujRe + wiIm * ujIm);
-      const y = work[(a + 1) | 0] - (uiIm * wjRe - uiRe * wjIm + wiIm * ujRe - wiRe * ujIm);
-      work[a] = x;
-      work[(a + 1) | 0] = y;
-      const x2 = work[b] - (ukRe * wjRe + ukIm * wjIm + wkRe * ujRe + wkIm * ujIm);
-      const y2 = work[(b + 1) | 0] - (ukIm * wjRe - ukRe * wjIm + wkIm * ujRe - wkRe * ujIm);
-      work[b] = x2;
-      work[(b + 1) | 0] = y2;
-      sRe += x * vjRe - y * vjIm;
-      sIm += x * vjIm + y * vjRe;
-      tRe += x2 * vjRe - y2 * vjIm;
-      tIm += x2 * vjIm + y2 * vjRe;
-      lanes[(l + 6) | 0] += x * viRe + y * viIm + x2 * vkRe + y2 * vkIm;
-      lanes[(l + 7) | 0] += x * viIm - y * viRe + x2 * vkIm - y2 * vkRe;
-    }
-    // Entry (i+1, i), then the two diagonal entries (real).
-    const x2 = work[b] - (ukRe * wiRe + ukIm * wiIm + wkRe * uiRe + wkIm * uiIm);
-    const y2 = work[b + 1] - (ukIm * wiRe - ukRe * wiIm + wkIm * uiRe - wkRe * uiIm);
-    work[b] = x2;
-    work[b + 1] = y2;
-    tRe += x2 * viRe - y2 * viIm;
-    tIm += x2 * viIm + y2 * viRe;
-    const d = work[a] - 2 * (uiRe * wiRe + uiIm * wiIm);
-    work[a] = d;
-    lanes[li + 6] += sRe + d * viRe + x2 * vkRe + y2 * vkIm;
-    lanes[li + 7] += sIm + d * viIm + x2 * vkIm - y2 * vkRe;
-    const dk = work[b + 2] - 2 * (ukRe * wkRe + ukIm * wkIm);
-    work[b + 2] = dk;
-    lanes[lk + 6] += tRe + dk * vkRe;
-    lanes[lk + 7] += tIm + dk * vkIm;
-  }
-
-  /** Row i of updateAndProduct on its own (the last row when the count is odd). */
-  private updateAndProductRow(start: number, i: number): void {
-    const n = this.n;
-    const work = this.work;
-    const lanes = this.lanes;
-    const li = 8 * i;
-    const uiRe = lanes[li];
-    const uiIm = lanes[li + 1];
-    const wiRe = lanes[li + 2];
-    const wiIm = lanes[li + 3];
-    const viRe = lanes[li + 4];
-    const viIm = lanes[li + 5];
-    let sRe = 0;
-    let sIm = 0;
-    let a = 2 * (i * n + start);
-    for (let l = 8 * start; l < li; a = (a + 2) | 0, l = (l + 8) | 0) {
-      const ujRe = lanes[l];
-      const ujIm = lanes[(l + 1) | 0];
-      const wjRe = lanes[(l + 2) | 0];
-      const wjIm = lanes[(l + 3) | 0];
-      const x = work[a] - (uiRe * wjRe + uiIm * wjIm + wiRe * ujRe + wiIm * ujIm);
-      const y = work[(a + 1) | 0] - (uiIm * wjRe - uiRe * wjIm + wiIm * ujRe - wiRe * ujIm);
-      work[a] = x;
-      work[(a + 1) | 0] = y;
-      const vjRe = lanes[(l + 4) | 0];
-      const vjIm = lanes[(l + 5) | 0];
-      sRe += x * vjRe - y * vjIm;
-      sIm += x * vjIm + y * vjRe;
-      lanes[(l + 6) | 0] += x * viRe + y * viIm;
-      lanes[(l + 7) | 0] += x * viIm - y * viRe;
-    }
-    const d = work[a] - 2 * (uiRe * wiRe + uiIm * wiIm);
-    work[a] = d;
-    lanes[li + 6] += sRe + d * viRe;
-    lanes[li + 7] += sIm + d * viIm;
   }
 }
