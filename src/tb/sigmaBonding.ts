@@ -6,8 +6,9 @@
  * between 1.5 and 4.5 electrons per atom (of the 6 that s, px, py can hold; a choice of ours that brackets the
  * rule's values for 0 ≤ η ≤ 1/3). There it takes
  * 1. a gap of the σ spectrum, if one exists: on planar sheets between consecutive σ bands (max of one below min of
- *    the next over the mesh), on buckled sheets between consecutive bands of the whole spectrum; the widest wins,
- *    and E* is its midpoint;
+ *    the next over the mesh), on buckled sheets between consecutive bands of the whole spectrum, at least 4σ wide
+ *    (narrower ones are bands that touch between mesh points, or too narrow to matter at width σ); the widest
+ *    wins, and E* is its midpoint;
  * 2. otherwise the deepest pseudogap: the minimum of the Gaussian σ-projected DOS on a grid of step σ/20.
  * At E*, with the same occupation ½·erfc((E − E*)/σ) as `fill` (so `fill` at the returned doping puts E_F at E*):
  * σ capacity = σ electrons per atom below E*; filling doping = all electrons (σ and π) per atom below E* − 3.
@@ -55,7 +56,7 @@ export interface SigmaBondingResult {
 }
 
 /** Widest gap between consecutive bands of a group whose σ count below lies in the window. */
-function widestGap(spectrum: MeshSpectrum, first: number, end: number, window: [number, number]): { lower: number; upper: number } | undefined {
+function widestGap(spectrum: MeshSpectrum, first: number, end: number, window: [number, number], minimum: number): { lower: number; upper: number } | undefined {
   const { count, bands, energies, sigmaWeight } = spectrum;
   const perState = 2 / (count * spectrum.atoms);
   let best: { lower: number; upper: number } | undefined;
@@ -68,7 +69,7 @@ function widestGap(spectrum: MeshSpectrum, first: number, end: number, window: [
       bottom = Math.min(bottom, energies[k * bands + b + 1]);
       sigmaBelow += sigmaWeight[k * bands + b] * perState;
     }
-    if (!(bottom > top) || sigmaBelow < window[0] || sigmaBelow > window[1]) continue;
+    if (!(bottom - top >= minimum) || sigmaBelow < window[0] || sigmaBelow > window[1]) continue;
     if (!best || bottom - top > best.upper - best.lower) best = { lower: top, upper: bottom };
   }
   return best;
@@ -101,7 +102,7 @@ export function sigmaBonding(spectrum: MeshSpectrum, options: SigmaBondingOption
   const smearing = options.smearing ?? 0.1;
   const window = options.window ?? [1.5, 4.5];
   const [first, end] = spectrum.groups[0];
-  const gap = widestGap(spectrum, first, end, window);
+  const gap = widestGap(spectrum, first, end, window, 4 * smearing);
   let energy: number;
   let sigmaDos: number;
   if (gap) {
