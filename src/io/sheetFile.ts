@@ -6,13 +6,13 @@
  * keys of both forms, or an unknown key, are refused naming the key. Limits: src/io/sheetLimits.ts.
  */
 import { patternToSheet } from '../lattice/pattern.ts';
-import { sheetToPattern } from '../lattice/recognise.ts';
+import { RECOGNITION_TOLERANCE, sheetToPattern } from '../lattice/recognise.ts';
 import type { Pattern, Sheet } from '../lattice/sheet.ts';
 import { readExplicitForm } from './explicitForm.ts';
 import { refuse, refuseRendered, requireRecord } from './fields.ts';
 import { fieldPath } from './invalid.ts';
 import { readPatternForm } from './patternForm.ts';
-import { MAX_NAME_LENGTH, MAX_SHEET_TEXT_LENGTH } from './sheetLimits.ts';
+import { MAX_NAME_LENGTH, MAX_SHEET_TEXT_LENGTH, MAX_SUPERCELL_SITES } from './sheetLimits.ts';
 
 /** A validated sheet file. */
 export interface ParsedSheet {
@@ -22,7 +22,8 @@ export interface ParsedSheet {
   readonly sheet: Sheet;
   /**
    * The vacancy pattern: the file's own in the pattern form; in the explicit form the recognised one
-   * (src/lattice/recognise.ts, equal up to a rigid motion), or absent when the atoms sit on no triangular lattice.
+   * (src/lattice/recognise.ts, equal up to a rigid motion), or absent when the atoms sit on no triangular lattice
+   * (or on one whose supercell has more than MAX_SUPERCELL_SITES sites).
    */
   readonly pattern?: Pattern;
 }
@@ -56,7 +57,7 @@ export function parseSheetObject(value: unknown): ParsedSheet {
 
   if (explicitKey !== undefined) {
     const sheet = readExplicitForm(record, name);
-    const pattern = sheetToPattern(sheet);
+    const pattern = sheetToPattern(sheet, RECOGNITION_TOLERANCE, MAX_SUPERCELL_SITES);
     return pattern ? { form: 'explicit', sheet, pattern } : { form: 'explicit', sheet };
   }
   const pattern = readPatternForm(record, name);

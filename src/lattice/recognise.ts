@@ -19,11 +19,19 @@ import { cartesian, type Pattern, type Sheet } from './sheet.ts';
 /** Default largest distance (Å) of an atom or cell vector from its ideal lattice position. */
 export const RECOGNITION_TOLERANCE = 1e-3;
 
+/** Default largest supercell (sites) recognised: a sparse sheet in a huge cell is not worth a vacancy list. */
+export const RECOGNITION_MAX_SITES = 4096;
+
 /**
  * The vacancy pattern of `sheet`, or undefined when its atoms do not sit, within `tolerance` (Å), on the
- * sites of a triangular lattice of which the cell is a supercell (or when the sheet is not planar).
+ * sites of a triangular lattice of which the cell is a supercell of at most `maxSites` sites (or when the
+ * sheet is not planar).
  */
-export function sheetToPattern(sheet: Sheet, tolerance: number = RECOGNITION_TOLERANCE): Pattern | undefined {
+export function sheetToPattern(
+  sheet: Sheet,
+  tolerance: number = RECOGNITION_TOLERANCE,
+  maxSites: number = RECOGNITION_MAX_SITES,
+): Pattern | undefined {
   const n = sheet.atoms.length;
   if (n === 0) return undefined;
   let zMin = Infinity, zMax = -Infinity;
@@ -47,7 +55,7 @@ export function sheetToPattern(sheet: Sheet, tolerance: number = RECOGNITION_TOL
   const [p, q] = guessRow(A1x, A1y);
   const [r, s] = guessRow(A2x, A2y);
   const det = p * s - q * r;
-  if (det === 0) return undefined;
+  if (det === 0 || Math.abs(det) > maxSites) return undefined;
   const supercell = toHnf([[p, q], [r, s]]);
   if (!supercell || supercell.a * supercell.c < n) return undefined;
   // Exact basis from the cell: (a1; a2) = [[p, q], [r, s]]⁻¹ · (A1; A2).

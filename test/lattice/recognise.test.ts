@@ -1,5 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { canonicalForm } from '../../src/enumerate/canonical.ts';
 import { patternCoordination } from '../../src/lattice/geometry.ts';
 import { makePattern, patternToSheet } from '../../src/lattice/pattern.ts';
 import { SHEET_PRESETS } from '../../src/lattice/presets.ts';
@@ -24,6 +25,8 @@ describe('sheetToPattern(sheet)', () => {
       const found = sheetToPattern(moveSheet(patternToSheet(pattern), motion));
       expect(found).toBeDefined();
       expect(patternsEquivalent(found!, pattern, ROTATIONS)).toBe(true);
+      // Cross-check with the enumerator's independent canonical form (src/enumerate/canonical.ts).
+      expect(canonicalForm(found!)).toBe(canonicalForm(pattern));
     }), { numRuns: 500 });
   });
 
@@ -58,5 +61,14 @@ describe('sheetToPattern(sheet)', () => {
     const rectangular = sheetToPattern({ cell: [[1.69, 0], [0, 1.69 * Math.sqrt(3)]], atoms: [[0, 0, 0], [0.5, 0.5, 0]] })!;
     expect(rectangular.supercell.a * rectangular.supercell.c).toBe(2);
     expect(rectangular.vacancies).toEqual([]);
+  });
+});
+
+describe('sheetToPattern(sheet, tolerance, maxSites)', () => {
+  it('gives up on supercells past maxSites (two atoms in a 590 × 590 cell would be 348,100 sites)', () => {
+    const d = 1.69, n = 590;
+    const sparse: Sheet = { cell: [[n * d, 0], [(n * d) / 2, (n * d * Math.sqrt(3)) / 2]], atoms: [[0, 0, 0], [1 / n, 0, 0]] };
+    expect(sheetToPattern(sparse)).toBeUndefined();
+    expect(sheetToPattern(sparse, 1e-3, n * n)!.vacancies).toHaveLength(n * n - 2);
   });
 });
