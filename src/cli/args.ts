@@ -2,7 +2,7 @@
  * Command-line flags: one declarative spec per command, one parser, one error style.
  * Every refusal is a ValidationError `invalid --flag: <value> (<why>)`, so the shell prints one line and exits 2.
  */
-import { invalid } from '../io/invalid.ts';
+import { ValidationError, invalid } from '../io/invalid.ts';
 
 /** What a flag accepts. Ranges are inclusive; `a-b` or a single value `a`. */
 export type FlagKind =
@@ -62,6 +62,16 @@ function splitRange(flag: string, text: string): [string, string] {
   return [match[1], match[2] ?? match[1]];
 }
 
+/** Runs a parse of one part of a value; a refusal then shows the whole value, with the part in the reason. */
+function withWhole<T>(flag: string, whole: string, parse: () => T): T {
+  try {
+    return parse();
+  } catch (error) {
+    if (!(error instanceof ValidationError) || error.value === JSON.stringify(whole)) throw error;
+    throw new ValidationError(flag, JSON.stringify(whole), `${error.value}: ${error.why}`);
+  }
+}
+
 function parseValue(flag: string, spec: FlagSpec, text: string): FlagValue {
   if (text.length > MAX_VALUE_LENGTH) invalid(flag, text, `longer than ${MAX_VALUE_LENGTH} characters`);
   switch (spec.kind) {
@@ -75,15 +85,15 @@ function parseValue(flag: string, spec: FlagSpec, text: string): FlagValue {
     case 'numberRange': {
       const [lowText, highText] = splitRange(flag, text);
       const parse = spec.kind === 'integerRange' ? parseInteger : parseNumber;
-      const low = parse(flag, lowText, spec.min, spec.max);
-      const high = parse(flag, highText, spec.min, spec.max);
+      const low = withWhole(flag, text, () => parse(flag, lowText, spec.min, spec.max));
+      const high = withWhole(flag, text, () => parse(flag, highText, spec.min, spec.max));
       if (low > high) invalid(flag, text, 'the range is empty (low end above high end)');
       return [low, high];
     }
     case 'integerList': {
       const parts = text.split(',');
       if (parts.length > spec.maxLength) invalid(flag, text, `at most ${spec.maxLength} values`);
-      return parts.map((part) => parseInteger(flag, part.trim(), spec.min, spec.max));
+      return parts.map((part) => withWhole(flag, text, () => parseInteger(flag, part.trim(), spec.min, spec.max)));
     }
     case 'choice':
       if (!spec.values.includes(text)) invalid(flag, text, `must be one of ${spec.values.join(', ')}`);
@@ -116,7 +126,8 @@ export function parseArgs(spec: CommandSpec, argv: readonly string[]): ParsedArg
       const flagSpec = Object.hasOwn(spec.flags, name) ? spec.flags[name] : undefined;
       if (!flagSpec) {
         const known = Object.keys(spec.flags).map((f) => `--${f}`).join(', ');
-        invalid(flag, word, `unknown option for ${spec.name}; known: ${known}`);
+        // Name the flag itself when it looks like one; otherwise the field is just "option".
+        invalid(/^--[A-Za-z][\w-]*$/.test(flag) ? flag : 'option', word, `unknown option for ${spec.name}; known: ${known}`);
       }
       if (Object.hasOwn(flags, name)) invalid(flag, word, 'given twice');
       let text: string;

@@ -42,7 +42,7 @@ describe('lacuna enumerate', () => {
 
   it('refuses missing and malformed flags with the field named', async () => {
     await refused(['enumerate', '--holes', '1'], /^invalid --sites: missing \(required/);
-    await refused(['enumerate', '--sites', '0-4', '--holes', '1'], /^invalid --sites: "0-4" \(must be from 1 to 64\)/);
+    await refused(['enumerate', '--sites', '0-4', '--holes', '1'], /^invalid --sites: "0-4" \("0": must be from 1 to 64\)/);
     await refused(['enumerate', '--sites', '4', '--holes', 'x'], /^invalid --holes: "x"/);
     await refused(['frobnicate'], /^invalid command: "frobnicate" \(unknown; commands: enumerate/);
   });
