@@ -9,7 +9,7 @@
  * - `neighbour[s·6 + t]` = the site of s + NEAREST_STEPS[t].
  * Built once per supercell, O(n²) memory; after Hart & Forcade, Phys. Rev. B 77, 224115 (2008), §IV.
  */
-import { isSupercellVector, type Hnf } from '../lattice/hnf.ts';
+import { isSupercellVector, mod, type Hnf } from '../lattice/hnf.ts';
 import { apply, NEAREST_STEPS, POINT_GROUP_6MM } from '../lattice/triangular.ts';
 import { smithNormalForm } from './smith.ts';
 import { stabiliser } from './supercells.ts';
@@ -30,11 +30,6 @@ export interface SupercellQuotient {
   readonly neighbour: Int32Array;
   /** True when a nearest-neighbour step is a supercell vector, so every hole neighbours its own image. */
   readonly selfNeighbour: boolean;
-}
-
-function mod(x: number, m: number): number {
-  const r = x % m;
-  return r < 0 ? r + m : r;
 }
 
 export function buildQuotient(h: Hnf): SupercellQuotient {

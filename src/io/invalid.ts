@@ -16,18 +16,43 @@ export class ValidationError extends Error {
   }
 }
 
-/** Renders any value compactly for an error message (long values are cut). */
+const BRIEF_ENTRIES = 6;
+const BRIEF_DEPTH = 3;
+const BRIEF_STRING = 60;
+
+/**
+ * A bounded copy of any value: arrays and objects cut to their first few entries and a few levels deep, long
+ * strings cut. JSON.stringify and String overflow the stack on deeply nested input; a brief copy never does.
+ */
+function briefCopy(value: unknown, depth: number): unknown {
+  if (typeof value === 'string') return value.length > BRIEF_STRING ? `${value.slice(0, BRIEF_STRING)}…` : value;
+  if (typeof value === 'bigint') return `${value}n`;
+  if (typeof value === 'symbol' || typeof value === 'function') return `[${typeof value}]`;
+  if (value === null || typeof value !== 'object') return value;
+  if (Array.isArray(value)) {
+    if (depth <= 0) return value.length === 0 ? [] : ['…'];
+    const head = value.slice(0, BRIEF_ENTRIES).map((entry) => briefCopy(entry, depth - 1));
+    if (value.length > BRIEF_ENTRIES) head.push('…');
+    return head;
+  }
+  const keys = Object.keys(value);
+  if (depth <= 0) return keys.length === 0 ? {} : { '…': '…' };
+  const out: Record<string, unknown> = {};
+  for (const key of keys.slice(0, BRIEF_ENTRIES)) out[briefCopy(key, 0) as string] = briefCopy((value as Record<string, unknown>)[key], depth - 1);
+  if (keys.length > BRIEF_ENTRIES) out['…'] = '…';
+  return out;
+}
+
+/** Renders any value compactly and safely for an error message (deep values cut, long text cut). */
 export function show(value: unknown): string {
+  if (typeof value === 'number') return Number.isNaN(value) ? 'NaN' : String(value);
+  if (value === undefined) return 'missing';
   let text: string;
-  if (typeof value === 'string') text = JSON.stringify(value);
-  else if (typeof value === 'number') text = Number.isNaN(value) ? 'NaN' : String(value);
-  else if (value === undefined) text = 'missing';
-  else {
-    try {
-      text = JSON.stringify(value) ?? String(value);
-    } catch {
-      text = String(value);
-    }
+  try {
+    const copy = briefCopy(value, BRIEF_DEPTH);
+    text = JSON.stringify(copy) ?? String(copy);
+  } catch {
+    text = '[unreadable]';
   }
   return text.length > 80 ? `${text.slice(0, 77)}...` : text;
 }

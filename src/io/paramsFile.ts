@@ -5,7 +5,7 @@
  * neighbour lists explode and are far outside any two-centre fit); name ≤ 100 characters, source and
  * provenance ≤ 4000; the file itself ≤ 1 MB.
  */
-import { show, ValidationError } from './invalid.ts';
+import { invalid } from './invalid.ts';
 import type { ParameterSet } from '../tb/params.ts';
 
 export const PARAMETER_LIMITS = {
@@ -22,27 +22,6 @@ const TOP_FIELDS = ['name', 'source', 'provenance', 'onsite', 'hopping', 'd0', '
 const REQUIRED_FIELDS = ['name', 'source', 'onsite', 'hopping', 'd0', 'exponent', 'cutoff'];
 const ONSITE_FIELDS = ['s', 'p'] as const;
 const HOPPING_FIELDS = ['ss_sigma', 'sp_sigma', 'pp_sigma', 'pp_pi'] as const;
-
-/**
- * `invalid(field, value, why)` of src/io/invalid.ts, made safe for hostile values: a value nested too deeply to
- * print (JSON.stringify and String both overflow the stack on it) is described instead of shown.
- */
-function invalid(field: string, value: unknown, why: string): never {
-  let rendered: string;
-  try {
-    // Cheap probe down the first child: printing a value 10⁴ levels deep is slow before it overflows.
-    let node = value;
-    for (let depth = 0; depth < 200 && typeof node === 'object' && node !== null; depth++) {
-      const first = Object.keys(node)[0];
-      node = first === undefined ? undefined : (node as Record<string, unknown>)[first];
-      if (depth === 199 && typeof node === 'object' && node !== null) throw new RangeError('deep');
-    }
-    rendered = show(value);
-  } catch {
-    rendered = Array.isArray(value) ? 'an array nested too deeply to show' : 'a value nested too deeply to show';
-  }
-  throw new ValidationError(field, rendered, why);
-}
 
 function isRecord(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);

@@ -6,16 +6,17 @@
 import { reduceSite, toHnf } from '../lattice/hnf.ts';
 import { makePattern } from '../lattice/pattern.ts';
 import type { Pattern } from '../lattice/sheet.ts';
-import { refuse, refuseRendered, requireArray, requireFinite, requireInteger } from './fields.ts';
+import { refuseRendered, requireArray, requireFinite, requireInteger } from './fields.ts';
+import { invalid } from './invalid.ts';
 import { MAX_BOND, MAX_INTEGER_ENTRY, MAX_SUPERCELL_SITES, MIN_ATOM_SEPARATION } from './sheetLimits.ts';
 
 type Rows = [[number, number], [number, number]];
 
 function readBond(value: unknown): number {
   const bond = requireFinite(value, 'bond', Infinity);
-  if (!(bond > 0)) refuse('bond', value, 'must be positive');
-  if (bond < MIN_ATOM_SEPARATION) refuse('bond', value, `below the minimum atom separation ${MIN_ATOM_SEPARATION} Å`);
-  if (bond > MAX_BOND) refuse('bond', value, `above the limit ${MAX_BOND} Å`);
+  if (!(bond > 0)) invalid('bond', value, 'must be positive');
+  if (bond < MIN_ATOM_SEPARATION) invalid('bond', value, `below the minimum atom separation ${MIN_ATOM_SEPARATION} Å`);
+  if (bond > MAX_BOND) invalid('bond', value, `above the limit ${MAX_BOND} Å`);
   return bond;
 }
 
@@ -29,8 +30,8 @@ function readSupercell(value: unknown): Rows {
   const first = readIntegerPair(rows[0], 'supercell[0]');
   const second = readIntegerPair(rows[1], 'supercell[1]');
   const sites = Math.abs(first[0] * second[1] - first[1] * second[0]);
-  if (sites === 0) refuse('supercell', value, 'singular: determinant 0');
-  if (sites > MAX_SUPERCELL_SITES) refuse('supercell', value, `${sites} sites, more than the limit of ${MAX_SUPERCELL_SITES}`);
+  if (sites === 0) invalid('supercell', value, 'singular: determinant 0');
+  if (sites > MAX_SUPERCELL_SITES) invalid('supercell', value, `${sites} sites, more than the limit of ${MAX_SUPERCELL_SITES}`);
   return [first, second];
 }
 
@@ -44,11 +45,11 @@ function readVacancies(value: unknown, rows: Rows): [number, number][] {
     const point = readIntegerPair(entry, `vacancies[${k}]`);
     const [i, j] = reduceSite(hnf, point[0], point[1]);
     const earlier = seen.get(j * hnf.a + i);
-    if (earlier !== undefined) refuse(`vacancies[${k}]`, entry, `same site as vacancies[${earlier}] modulo the supercell`);
+    if (earlier !== undefined) invalid(`vacancies[${k}]`, entry, `same site as vacancies[${earlier}] modulo the supercell`);
     seen.set(j * hnf.a + i, k);
     return point;
   });
-  if (out.length === sites) refuse('vacancies', value, `every one of the ${sites} sites is vacant: no atoms`);
+  if (out.length === sites) invalid('vacancies', value, `every one of the ${sites} sites is vacant: no atoms`);
   return out;
 }
 

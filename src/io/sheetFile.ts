@@ -9,7 +9,8 @@ import { patternToSheet } from '../lattice/pattern.ts';
 import { RECOGNITION_TOLERANCE, sheetToPattern } from '../lattice/recognise.ts';
 import type { Pattern, Sheet } from '../lattice/sheet.ts';
 import { readExplicitForm } from './explicitForm.ts';
-import { refuse, refuseRendered, requireRecord } from './fields.ts';
+import { refuseRendered, requireRecord } from './fields.ts';
+import { invalid } from './invalid.ts';
 import { fieldPath } from './invalid.ts';
 import { readPatternForm } from './patternForm.ts';
 import { MAX_NAME_LENGTH, MAX_SHEET_TEXT_LENGTH, MAX_SUPERCELL_SITES } from './sheetLimits.ts';
@@ -34,7 +35,7 @@ const FORMS = 'a sheet is { name?, cell, atoms } or { name?, bond, supercell, va
 
 function readName(value: unknown): string | undefined {
   if (value === undefined) return undefined;
-  if (typeof value !== 'string') refuse('name', value, 'not a string');
+  if (typeof value !== 'string') invalid('name', value, 'not a string');
   if (value.length > MAX_NAME_LENGTH) refuseRendered('name', `${value.length} characters`, `longer than the limit of ${MAX_NAME_LENGTH}`);
   return value;
 }
@@ -44,16 +45,16 @@ export function parseSheetObject(value: unknown): ParsedSheet {
   const record = requireRecord(value, 'sheet');
   const keys = Object.keys(record);
   const known = new Set<string>(['name', ...EXPLICIT_KEYS, ...PATTERN_KEYS]);
-  for (const key of keys) if (!known.has(key)) refuse(fieldPath('', key), record[key], `unknown field; ${FORMS}`);
+  for (const key of keys) if (!known.has(key)) invalid(fieldPath('', key), record[key], `unknown field; ${FORMS}`);
   const explicitKey = keys.find((key) => (EXPLICIT_KEYS as readonly string[]).includes(key));
   const patternKey = keys.find((key) => (PATTERN_KEYS as readonly string[]).includes(key));
   if (explicitKey !== undefined && patternKey !== undefined) {
-    refuse(patternKey, record[patternKey], `a pattern-form field beside the explicit form's ${explicitKey}; ${FORMS}`);
+    invalid(patternKey, record[patternKey], `a pattern-form field beside the explicit form's ${explicitKey}; ${FORMS}`);
   }
-  if (explicitKey === undefined && patternKey === undefined) refuse('sheet', value, `neither form; ${FORMS}`);
+  if (explicitKey === undefined && patternKey === undefined) invalid('sheet', value, `neither form; ${FORMS}`);
   const name = readName(record.name);
   const required = explicitKey !== undefined ? EXPLICIT_KEYS : PATTERN_KEYS;
-  for (const key of required) if (record[key] === undefined) refuse(key, undefined, `required by the ${explicitKey !== undefined ? 'explicit' : 'pattern'} form; ${FORMS}`);
+  for (const key of required) if (record[key] === undefined) invalid(key, undefined, `required by the ${explicitKey !== undefined ? 'explicit' : 'pattern'} form; ${FORMS}`);
 
   if (explicitKey !== undefined) {
     const sheet = readExplicitForm(record, name);
@@ -69,13 +70,13 @@ export function parseSheetObject(value: unknown): ParsedSheet {
  * is too long or not JSON; by default it is `sheet`.
  */
 export function parseSheetText(text: string, origin: string = 'sheet'): ParsedSheet {
-  if (typeof text !== 'string') refuse(origin, text, 'not a text');
+  if (typeof text !== 'string') invalid(origin, text, 'not a text');
   if (text.length > MAX_SHEET_TEXT_LENGTH) refuseRendered(origin, `${text.length} characters`, `longer than the limit of ${MAX_SHEET_TEXT_LENGTH}`);
   let value: unknown;
   try {
     value = JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
   } catch (error) {
-    refuse(origin, text, `not JSON: ${error instanceof Error ? error.message.slice(0, 120) : 'unreadable'}`);
+    invalid(origin, text, `not JSON: ${error instanceof Error ? error.message.slice(0, 120) : 'unreadable'}`);
   }
   return parseSheetObject(value);
 }

@@ -13,9 +13,10 @@ export interface Hnf {
   readonly c: number;
 }
 
-function mod(x: number, m: number): number {
+/** x mod m in [0, m); `+ 0` turns −0 (from e.g. −2 % 1) into +0 so that equal sites compare equal. */
+export function mod(x: number, m: number): number {
   const r = x % m;
-  return r < 0 ? r + m : r;
+  return r < 0 ? r + m : r + 0;
 }
 
 /**

@@ -27,9 +27,10 @@ const ROTATE_60: IntMat2 = [0, -1, 1, 1];
 const MIRROR_X: IntMat2 = [1, 1, 0, -1];
 
 export function multiply(p: IntMat2, q: IntMat2): IntMat2 {
+  // `+ 0` keeps −0 (from (−1)·0 + (−0)) out of the integer tables.
   return [
-    p[0] * q[0] + p[1] * q[2], p[0] * q[1] + p[1] * q[3],
-    p[2] * q[0] + p[3] * q[2], p[2] * q[1] + p[3] * q[3],
+    p[0] * q[0] + p[1] * q[2] + 0, p[0] * q[1] + p[1] * q[3] + 0,
+    p[2] * q[0] + p[3] * q[2] + 0, p[2] * q[1] + p[3] * q[3] + 0,
   ];
 }
 

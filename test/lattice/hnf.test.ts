@@ -70,11 +70,12 @@ describe('reduceSite(h, i, j)', () => {
   });
 });
 
-describe('negative zero (reported to the lead)', () => {
-  // KNOWN BUG in src/lattice/hnf.ts `mod`: (−2) % 1 is −0, and −0 < 0 is false, so b (and reduced sites)
-  // can come back as −0. Harmless in arithmetic and JSON, but Object.is / deep equality see it.
-  // Fix: `return r < 0 ? r + m : r + 0;`. This test starts passing (and `it.fails` turns red) once fixed.
-  it.fails('toHnf([[1, 0], [−2, 1]]) has b = +0', () => {
+describe('negative zero', () => {
+  // (−2) % 1 is −0 in JavaScript (ECMAScript remainder keeps the dividend's sign); reduced entries must be +0
+  // so that deep equality and Object.is treat equal sites as equal.
+  it('toHnf([[1, 0], [−2, 1]]) has b = +0, and reduced sites are +0', () => {
     expect(Object.is(toHnf([[1, 0], [-2, 1]])!.b, 0)).toBe(true);
+    const [i, j] = reduceSite({ a: 1, b: 0, c: 1 }, -3, -2);
+    expect(Object.is(i, 0) && Object.is(j, 0)).toBe(true);
   });
 });
