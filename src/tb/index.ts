@@ -14,6 +14,5 @@ export { parseParameterFile, validateParameterObject, PARAMETER_LIMITS } from '.
 export * from './dos.ts';
 export * from './dosTriangle.ts';
 export * from './countingRule.ts';
-export * from './holeDensity.ts';
 export * from './sigmaBonding.ts';
 export * from './ranking.ts';

@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { rotateSheet } from '../tb/fixtures.ts';
 import { describe, expect, it } from 'vitest';
 import {
   bondCutoff, coordinationHistogram, estimateHoleDensity, patternCoordination, sheetCoordination,
@@ -39,6 +40,9 @@ describe('estimateHoleDensity(sheet)', () => {
       const estimate = estimateHoleDensity(patternToSheet(preset.pattern));
       expect(estimate.exact).toBe(true);
       expect(estimate.eta).toBeCloseTo(holeDensity(preset.pattern), 12);
+      expect(estimate.bond).toBeCloseTo(preset.pattern.bond, 10);
+      // Rotated by 0.7 rad: the same structure, the same η (η = vacancies / sites, DESIGN.md conventions).
+      expect(estimateHoleDensity(rotateSheet(patternToSheet(preset.pattern), 0.7)).eta).toBeCloseTo(holeDensity(preset.pattern), 10);
     }
   });
 

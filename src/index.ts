@@ -1,0 +1,32 @@
+/**
+ * lacuna as a library: the pure computational core (no DOM, no file system). Re-exports only.
+ *
+ *   import { enumerateStructures, findSheetPreset, patternToSheet, TightBindingModel, fill } from 'lacuna';
+ */
+// Sheets and the triangular lattice.
+export * from './lattice/triangular.ts';
+export * from './lattice/hnf.ts';
+export * from './lattice/sheet.ts';
+export * from './lattice/pattern.ts';
+export * from './lattice/neighbours.ts';
+export * from './lattice/reduce.ts';
+export * from './lattice/reducedCell.ts';
+export * from './lattice/separation.ts';
+export * from './lattice/recognise.ts';
+export * from './lattice/geometry.ts';
+export * from './lattice/holes.ts';
+export * from './lattice/presets.ts';
+// Vacancy-pattern enumeration.
+export * from './enumerate/index.ts';
+// Tight binding (includes the parameter-file parser).
+export * from './tb/index.ts';
+export { RealSymmetricEigensolver } from './tb/eighReal.ts';
+export { timeEigenvalues } from './tb/eighBench.ts';
+// Input and output.
+export { ValidationError, invalid, fieldPath } from './io/invalid.ts';
+export * from './io/sheetFile.ts';
+export * from './io/sheetLimits.ts';
+export { parseKpointsText, parseKpointsObject } from './io/kpointsFile.ts';
+export { sheetToCif } from './io/cif.ts';
+export { sheetToXyz } from './io/xyz.ts';
+export * from './io/sheetJson.ts';
