@@ -5,14 +5,19 @@
 import { ValidationError, invalid } from '../io/invalid.ts';
 import { commandHelp } from './args.ts';
 import { bandsCommand } from './commands/bands.ts';
+import { bondingCommand } from './commands/bonding.ts';
 import { benchCommand } from './commands/bench.ts';
+import { dosCommand } from './commands/dos.ts';
 import { enumerateCommand } from './commands/enumerate.ts';
 import { exportCommand } from './commands/export.ts';
 import { fillCommand } from './commands/fill.ts';
 import { presetsCommand } from './commands/presets.ts';
+import { rankCommand } from './commands/rank.ts';
 import type { CliIo, Command } from './io.ts';
 
-export const COMMANDS: readonly Command[] = [enumerateCommand, bandsCommand, fillCommand, exportCommand, presetsCommand, benchCommand];
+export const COMMANDS: readonly Command[] = [
+  enumerateCommand, bandsCommand, fillCommand, dosCommand, bondingCommand, rankCommand, exportCommand, presetsCommand, benchCommand,
+];
 
 function overview(): string {
   const lines = ['lacuna — vacancy patterns, bands and electron counting for boron sheets', '', 'usage: lacuna <command> [options]   (lacuna help <command> for its options)', ''];

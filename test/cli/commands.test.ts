@@ -102,3 +102,42 @@ describe('lacuna bands / fill / export', () => {
     await refused(['export', 'alpha', '--format', 'pdb'], /^invalid --format: "pdb" \(must be one of cif, xyz, json\)/);
   });
 });
+
+describe('lacuna dos / bonding / rank', () => {
+  it('dos --json integrates to 8 states per atom, σ to 6 and π to 2 (4 orbitals × 2 spins; common practice)', async () => {
+    for (const method of ['gaussian', 'triangle']) {
+      const { code, stdout } = await cli(['dos', 'beta12', '--mesh', '12', '--method', method, '--points', '4001', '--json']);
+      expect(code).toBe(0);
+      const dos = JSON.parse(stdout);
+      const step = dos.energy[1] - dos.energy[0];
+      const sum = (values: number[]) => values.reduce((s, v) => s + v, 0) * step;
+      expect(sum(dos.total)).toBeCloseTo(8, 2);
+      expect(sum(dos.sigma)).toBeCloseTo(6, 2);
+      expect(sum(dos.pi)).toBeCloseTo(2, 2);
+    }
+  });
+
+  it('bonding --json puts the counting rule beside the σ filling', async () => {
+    const { code, stdout } = await cli(['bonding', 'chi3', '--mesh', '12', '--json']);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    // Counting rule at η = 1/5: δ = 8/(3·4/5) − 3 = 1/3 (analytic, from the rule's formula).
+    expect(document.counting_rule.doping).toBeCloseTo(1 / 3, 12);
+    expect(document.hole_density).toBeCloseTo(1 / 5, 12);
+    expect(Number.isFinite(document.sigma_filling.sigma_capacity)).toBe(true);
+    expect(Number.isFinite(document.sigma_filling.doping)).toBe(true);
+  });
+
+  it('rank --json groups patterns by η, lowest band energy first', async () => {
+    const { code, stdout } = await cli(['rank', '--sites', '1-9', '--holes', '1', '--isolated', '--mesh', '8', '--json']);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    expect(document.note).toMatch(/not across η/);
+    for (const group of document.groups) {
+      expect(group.patterns[0].above_lowest).toBe(0);
+      for (let i = 1; i < group.patterns.length; i++) expect(group.patterns[i].band_energy_per_atom).toBeGreaterThanOrEqual(group.patterns[i - 1].band_energy_per_atom);
+    }
+    // η of the one-hole patterns with N ≤ 9 sites: 1/N for N = 3…9 (1 and 2 sites have no isolated hole).
+    expect(document.groups.map((g: { hole_density: number }) => g.hole_density)).toEqual([1 / 9, 1 / 8, 1 / 7, 1 / 6, 1 / 5, 1 / 4, 1 / 3]);
+  });
+});

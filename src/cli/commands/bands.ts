@@ -3,24 +3,24 @@
  */
 import { invalid } from '../../io/invalid.ts';
 import { parseKpointsText } from '../../io/kpointsFile.ts';
-import { autoPath, computeBands, TightBindingModel, type BandResult, type KPath } from '../../tb/index.ts';
+import { autoPath, computeBands, type BandResult, type KPath } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { writeNamedFile, type Command, type CliIo } from '../io.ts';
-import { resolveParameters } from '../parameters.ts';
+import { JSON_FLAG, PARAMS_FLAG, SHEET_ARGUMENT } from '../commonFlags.ts';
+import { resolveModel } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
-import { resolveSheet } from '../sheetArgument.ts';
 
 const spec: CommandSpec = {
   name: 'bands',
   summary: 'tight-binding bands of a sheet with the σ share of every state',
-  positionals: [{ name: 'SHEET', help: 'a preset name, a sheet file, or sheet JSON text' }],
+  positionals: [SHEET_ARGUMENT],
   flags: {
-    params: { kind: 'text', placeholder: 'FILE|NAME', help: 'parameter set: a preset name or a parameter file (default harrison1980)' },
+    params: PARAMS_FLAG,
     kpoints: { kind: 'text', placeholder: 'FILE', help: 'k-points file {"kpoints": [[kx, ky]]}, Cartesian Å⁻¹' },
     path: { kind: 'choice', values: ['auto'], placeholder: 'auto', help: 'the automatic path through the special points of the reduced cell' },
     points: { kind: 'integer', min: 2, max: 100_000, placeholder: 'P', help: 'points on the automatic path (default 300)' },
     csv: { kind: 'text', placeholder: 'FILE', help: 'also write the bands as CSV' },
-    json: { kind: 'switch', help: 'one JSON document on stdout' },
+    json: JSON_FLAG,
   },
 };
 
@@ -51,9 +51,7 @@ function run(argv: readonly string[], io: CliIo): number {
   if (flags.kpoints !== undefined && flags.path !== undefined) invalid('--kpoints', flags.kpoints, 'give either --kpoints or --path auto, not both');
   if (flags.kpoints === undefined && flags.path === undefined) invalid('--path', undefined, 'give --path auto or --kpoints FILE');
   if (flags.points !== undefined && flags.path === undefined) invalid('--points', flags.points, 'only with --path auto');
-  const sheet = resolveSheet(positionals.SHEET, io);
-  const params = resolveParameters(flags.params as string | undefined, io);
-  const model = new TightBindingModel(sheet.sheet, params);
+  const { sheet, params, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io);
 
   let kpoints: Float64Array;
   let path: KPath | undefined;

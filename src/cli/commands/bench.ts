@@ -4,6 +4,7 @@
 import { invalid } from '../../io/invalid.ts';
 import { timeEigenvalues } from '../../tb/eighBench.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
+import { JSON_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
 
 const spec: CommandSpec = {
@@ -12,7 +13,7 @@ const spec: CommandSpec = {
   positionals: [{ name: 'KERNEL', help: 'eigh' }],
   flags: {
     sizes: { kind: 'integerList', min: 1, max: 512, maxLength: 16, placeholder: 'n1,n2,…', help: 'matrix sizes (default 24,64,128)' },
-    json: { kind: 'switch', help: 'one JSON document on stdout' },
+    json: JSON_FLAG,
   },
 };
 

@@ -6,6 +6,7 @@ import { countStructures, enumerateStructures, type CountRow, type EnumerateOpti
 import { invalid } from '../../io/invalid.ts';
 import { hnfRows, patternToSheet } from '../../lattice/pattern.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
+import { JSON_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
 import { ProgressLine } from '../progress.ts';
 
@@ -25,7 +26,7 @@ const spec: CommandSpec = {
     shard: { kind: 'shard', placeholder: 'i/n', help: 'do the i-th of n deterministic parts of the work (outputs of all n concatenate to the whole)' },
     bond: { kind: 'number', min: 0, max: 10, exclusiveMin: true, placeholder: 'Å', help: 'B–B distance for the Cartesian cell and atoms (default 1.69)' },
     'counts-only': { kind: 'switch', help: 'count without listing (memory stays flat)' },
-    json: { kind: 'switch', help: 'one JSON document on stdout' },
+    json: JSON_FLAG,
   },
 };
 

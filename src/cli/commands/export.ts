@@ -5,13 +5,14 @@ import { sheetToCif } from '../../io/cif.ts';
 import { sheetToJson } from '../../io/sheetJson.ts';
 import { sheetToXyz } from '../../io/xyz.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
+import { SHEET_ARGUMENT } from '../commonFlags.ts';
 import { writeNamedFile, type Command, type CliIo } from '../io.ts';
 import { resolveSheet } from '../sheetArgument.ts';
 
 const spec: CommandSpec = {
   name: 'export',
   summary: 'write a sheet as CIF, extended XYZ or explicit JSON',
-  positionals: [{ name: 'SHEET', help: 'a preset name, a sheet file, or sheet JSON text' }],
+  positionals: [SHEET_ARGUMENT],
   flags: {
     format: { kind: 'choice', values: ['cif', 'xyz', 'json'], placeholder: 'cif|xyz|json', help: 'output format (default json)' },
     out: { kind: 'text', placeholder: 'FILE', help: 'write to FILE instead of stdout' },

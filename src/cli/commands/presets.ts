@@ -5,13 +5,14 @@ import { holeDensity, hnfRows, patternToSheet } from '../../lattice/pattern.ts';
 import { SHEET_PRESETS } from '../../lattice/presets.ts';
 import { PARAMETER_PRESETS } from '../../tb/params.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
+import { JSON_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
 
 const spec: CommandSpec = {
   name: 'presets',
   summary: 'list the named sheets and parameter sets, with their sources',
   positionals: [],
-  flags: { json: { kind: 'switch', help: 'one JSON document on stdout' } },
+  flags: { json: JSON_FLAG },
 };
 
 function run(argv: readonly string[], io: CliIo): number {

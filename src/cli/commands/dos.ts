@@ -1,0 +1,65 @@
+/**
+ * `lacuna dos`: total and σ/π-projected density of states, by Gaussian broadening or the linear triangle method.
+ */
+import { energyGrid, fillSpectrum, gaussianDos, meshSpectrum, triangleDos, type DosResult } from '../../tb/index.ts';
+import { parseArgs, type CommandSpec } from '../args.ts';
+import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
+import { writeNamedFile, type Command, type CliIo } from '../io.ts';
+import { resolveModel } from '../parameters.ts';
+import { ProgressLine } from '../progress.ts';
+
+const spec: CommandSpec = {
+  name: 'dos',
+  summary: 'density of states, total and σ/π-projected, in states per eV per atom (both spins; integrates to 8)',
+  positionals: [SHEET_ARGUMENT],
+  flags: {
+    params: PARAMS_FLAG,
+    mesh: MESH_FLAG,
+    method: { kind: 'choice', values: ['gaussian', 'triangle'], placeholder: 'gaussian|triangle', help: 'Gaussian broadening of width --smearing, or the linear triangle method (default gaussian)' },
+    smearing: SMEARING_FLAG,
+    points: { kind: 'integer', min: 2, max: 200_000, placeholder: 'P', help: 'energies on the grid (default 2001)' },
+    csv: { kind: 'text', placeholder: 'FILE', help: 'also write the DOS as CSV' },
+    json: JSON_FLAG,
+  },
+};
+
+function dosCsv(dos: DosResult): string {
+  const lines = ['energy_eV,total,sigma,pi'];
+  for (let i = 0; i < dos.energy.length; i++) lines.push(`${dos.energy[i]},${dos.total[i]},${dos.sigma[i]},${dos.pi[i]}`);
+  return `${lines.join('\n')}\n`;
+}
+
+function run(argv: readonly string[], io: CliIo): number {
+  const { positionals, flags } = parseArgs(spec, argv);
+  const { sheet, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io);
+  const smearing = (flags.smearing as number | undefined) ?? 0.1;
+  const progress = new ProgressLine(io.err, 'k-points');
+  const spectrum = meshSpectrum(model, { mesh: flags.mesh as number | undefined, onProgress: (done, total) => progress.update(done, done / total) });
+  progress.done();
+  const grid = energyGrid(spectrum, { points: (flags.points as number | undefined) ?? 2001 });
+  const dos = flags.method === 'triangle' ? triangleDos(spectrum, grid) : gaussianDos(spectrum, grid, smearing);
+  const fermi = fillSpectrum(spectrum, { smearing }).fermi;
+  if (flags.csv !== undefined) writeNamedFile(io, '--csv', flags.csv as string, dosCsv(dos));
+  if (flags.json) {
+    io.out(`${JSON.stringify({
+      sheet: sheet.label,
+      parameters: dos.parameters,
+      method: dos.method,
+      mesh: spectrum.mesh,
+      smearing: dos.smearing,
+      units: 'states per eV per atom, both spins',
+      fermi,
+      energy: Array.from(dos.energy),
+      total: Array.from(dos.total),
+      sigma: Array.from(dos.sigma),
+      pi: Array.from(dos.pi),
+    })}\n`);
+    return 0;
+  }
+  io.out(`${sheet.label}: DOS by the ${dos.method} method on a ${spectrum.mesh}×${spectrum.mesh} mesh, ${grid.length} energies from ${grid[0].toFixed(2)} to ${grid[grid.length - 1].toFixed(2)} eV; neutral E_F ${fermi.toFixed(3)} eV\n`);
+  if (flags.csv !== undefined) io.out(`wrote ${flags.csv}\n`);
+  io.out(`${MODEL_CAVEAT}\n`);
+  return 0;
+}
+
+export const dosCommand: Command = { spec, run };
