@@ -4,7 +4,7 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   root: 'src/app',
   publicDir: false,
-  build: { outDir: '../../dist', emptyOutDir: true },
+  build: { outDir: '../../dist/app', emptyOutDir: true },
   preview: { host: '127.0.0.1' },
   test: {
     root: '.',
