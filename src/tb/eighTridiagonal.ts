@@ -21,6 +21,15 @@ const ABSOLUTE_FLOOR = 2 ** -500;
 /** Below this a rotation's x² + z² may have lost precision to underflow; rescale before the square root. */
 const ROTATION_UNSAFE = 2 ** -450;
 const FLOOR_SQUARED = ABSOLUTE_FLOOR * ABSOLUTE_FLOOR;
+/**
+ * Root-free QR: a pivot square p = π² below (ε·2^−10·scale)² is set to 0 with its γ (|γ| ≤ |π|), a backward
+ * perturbation of T below ε·scale/1024. Without it p = γ² of a tiny γ (shift equal to a diagonal entry to
+ * 1e-160, say) is subnormal with a few digits, and ν²/(r·p) becomes inexact or 0/0. Keeping p ≥ this level
+ * keeps r·p ≥ p² a normal number and underflow in ν² an absolute error far below ε²·scale² in the next p.
+ */
+const FLUSH_SQUARED = (EPS * 2 ** -10) ** 2;
+/** Smallest block scale the flush level is taken relative to: callers scale T's largest entry to ≥ 2^−100. */
+const SMALLEST_SCALE_SQUARED = 2 ** -200;
 
 /**
  * True when off[i] is negligible beside its diagonal neighbours (relative test, Golub & Van Loan §8.3)
@@ -142,6 +151,8 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
   let m = n - 1;
   // Start of the unreduced block that ends at m, or −1 when it must be searched for again.
   let l = -1;
+  // Pivot squares below this are flushed to 0 (FLUSH_SQUARED); set per block, an upper bound after deflations.
+  let flushBelow = 0;
   while (m > 0) {
     // Deflation test b² ≤ ε²·(|a_i| + |a_{i+1}|)² or b² ≤ floor², the square of the test in `negligible`.
     let size = Math.abs(diag[m - 1]) + Math.abs(diag[m]);
@@ -159,6 +170,7 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
         l--;
       }
       if (l > 0) offSquared[l - 1] = 0;
+      flushBelow = flushLevel(diag, offSquared, l, m);
     }
     if (++sweeps > maxSweeps) return false;
     // Wilkinson shift from the trailing 2×2 block, as in qrStep.
@@ -174,6 +186,10 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
     let s = 0;
     let gamma = diag[l] - shift;
     let p = gamma * gamma;
+    if (p < flushBelow) {
+      p = 0;
+      gamma = 0;
+    }
     let split = -1;
     for (let i = l; i < m; i++) {
       const b2 = offSquared[i];
@@ -181,7 +197,13 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
       const inverse = 1 / r;
       const alpha = diag[i + 1];
       const nu = p * (alpha - shift) - b2 * gamma;
-      const nextGamma = nu * inverse;
+      // p_next = γ_next²/c_next = ν²/(r·p); when p = 0 (c = 0) the limit is c_previous·b² (Parlett, ch. 8).
+      let nextP = p !== 0 ? (nu * nu) / (r * p) : c * b2;
+      let nextGamma = nu * inverse;
+      if (nextP < flushBelow) {
+        nextP = 0;
+        nextGamma = 0;
+      }
       diag[i] = gamma + (alpha - nextGamma);
       if (i > l) {
         const settled = s * r;
@@ -189,8 +211,6 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
         const around = Math.abs(diag[i - 1]) + Math.abs(diag[i]);
         if (settled <= eps2 * around * around || settled <= FLOOR_SQUARED) split = i - 1;
       }
-      // p_next = γ_next²/c_next = ν²/(r·p); when p = 0 (c = 0) the limit is c_previous·b² (Parlett, ch. 8).
-      const nextP = p !== 0 ? (nu * nu) / (r * p) : c * b2;
       c = p * inverse;
       s = b2 * inverse;
       gamma = nextGamma;
@@ -201,9 +221,18 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
     if (split >= 0) {
       offSquared[split] = 0;
       l = split + 1;
+      flushBelow = flushLevel(diag, offSquared, l, m);
     }
   }
   return true;
+}
+
+/** Flush level of the root-free step on block l…m: FLUSH_SQUARED·max(largest entry², 2^−200). */
+function flushLevel(diag: Float64Array, offSquared: Float64Array, l: number, m: number): number {
+  let largest = SMALLEST_SCALE_SQUARED;
+  for (let i = l; i <= m; i++) largest = Math.max(largest, diag[i] * diag[i]);
+  for (let i = l; i < m; i++) largest = Math.max(largest, offSquared[i]);
+  return FLUSH_SQUARED * largest;
 }
 
 /**
