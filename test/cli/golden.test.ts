@@ -1,0 +1,43 @@
+/**
+ * Golden files of the CLI's JSON on the presets: regression guards for the contract output (shape and values),
+ * not outside references — the outside checks live in the module tests. Numbers are rounded to 8 significant
+ * digits so that floating-point noise does not count. A failing comparison writes `<name>.actual.json` beside
+ * the golden file; set LACUNA_UPDATE_GOLDEN=1 to accept the new output.
+ */
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { runCli } from '../../src/cli/run.ts';
+import { SHEET_PRESETS } from '../../src/lattice/presets.ts';
+import { fakeIo } from './fakeIo.ts';
+
+const GOLDEN = join(dirname(fileURLToPath(import.meta.url)), 'golden');
+
+function rounded(value: unknown): unknown {
+  if (typeof value === 'number') return value === 0 ? 0 : Number(value.toPrecision(8));
+  if (Array.isArray(value)) return value.map(rounded);
+  if (value && typeof value === 'object') return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, rounded(v)]));
+  return value;
+}
+
+async function matchesGolden(name: string, argv: string[]): Promise<void> {
+  const io = fakeIo();
+  expect(await runCli(argv, io)).toBe(0);
+  const actual = `${JSON.stringify(rounded(JSON.parse(io.stdout())), null, 1)}\n`;
+  const file = join(GOLDEN, `${name}.json`);
+  if (process.env.LACUNA_UPDATE_GOLDEN || !existsSync(file)) writeFileSync(file, actual);
+  const expected = readFileSync(file, 'utf8');
+  if (actual !== expected) writeFileSync(join(GOLDEN, `${name}.actual.json`), actual);
+  expect(actual).toBe(expected);
+}
+
+describe('CLI golden files', () => {
+  for (const preset of SHEET_PRESETS) {
+    it(`fill ${preset.name} --mesh 12 --json`, () => matchesGolden(`fill-${preset.name}`, ['fill', preset.name, '--mesh', '12', '--json']));
+    it(`bonding ${preset.name} --mesh 12 --json`, () => matchesGolden(`bonding-${preset.name}`, ['bonding', preset.name, '--mesh', '12', '--json']));
+  }
+  it('bands honeycomb --path auto --points 12 --json', () => matchesGolden('bands-honeycomb', ['bands', 'honeycomb', '--path', 'auto', '--points', '12', '--json']));
+  it('enumerate --sites 1-6 --holes 0-6 --json', () => matchesGolden('enumerate-1-6', ['enumerate', '--sites', '1-6', '--holes', '0-6', '--json']));
+  it('export beta12 --format json', () => matchesGolden('export-beta12', ['export', 'beta12', '--format', 'json']));
+});
