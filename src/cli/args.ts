@@ -12,6 +12,7 @@ export type FlagKind =
   | { kind: 'integerRange'; min: number; max: number }
   | { kind: 'numberRange'; min: number; max: number }
   | { kind: 'integerList'; min: number; max: number; maxLength: number }
+  | { kind: 'numberList'; min: number; max: number; length: number; exclusiveMin?: boolean }
   | { kind: 'choice'; values: readonly string[] }
   | { kind: 'text' }
   | { kind: 'shard' };
@@ -94,6 +95,11 @@ function parseValue(flag: string, spec: FlagSpec, text: string): FlagValue {
       const parts = text.split(',');
       if (parts.length > spec.maxLength) invalid(flag, text, `at most ${spec.maxLength} values`);
       return parts.map((part) => withWhole(flag, text, () => parseInteger(flag, part.trim(), spec.min, spec.max)));
+    }
+    case 'numberList': {
+      const parts = text.split(',');
+      if (parts.length !== spec.length) invalid(flag, text, `needs ${spec.length} comma-separated numbers`);
+      return parts.map((part) => withWhole(flag, text, () => parseNumber(flag, part.trim(), spec.min, spec.max, spec.exclusiveMin)));
     }
     case 'choice':
       if (!spec.values.includes(text)) invalid(flag, text, `must be one of ${spec.values.join(', ')}`);

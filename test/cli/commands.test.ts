@@ -141,3 +141,24 @@ describe('lacuna dos / bonding / rank', () => {
     expect(document.groups.map((g: { hole_density: number }) => g.hole_density)).toEqual([1 / 9, 1 / 8, 1 / 7, 1 / 6, 1 / 5, 1 / 4, 1 / 3]);
   });
 });
+
+describe('lacuna enumerate --cell', () => {
+  it('finds β12 for a measured rectangular 5.1 × 2.95 Å cell (β12 on Ag(111): about 5.0 × 2.9 Å, Feng et al., Nat. Chem. 8, 563 (2016); from memory)', async () => {
+    const { code, stdout } = await cli(['enumerate', '--sites', '1-12', '--holes', '1-3', '--isolated', '--cell', '5.1,2.95,90', '--json']);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    expect(document.structures.map((s: { phase?: string }) => s.phase)).toContain('beta12');
+    for (const s of document.structures) {
+      expect(Math.abs(s.lattice.b - 5.1)).toBeLessThanOrEqual(0.15);
+      expect(Math.abs(s.lattice.a - 2.95)).toBeLessThanOrEqual(0.15);
+    }
+    const counted = JSON.parse((await cli(['enumerate', '--sites', '1-12', '--holes', '1-3', '--isolated', '--cell', '5.1,2.95,90', '--counts-only', '--json'])).stdout);
+    expect(counted.counts).toEqual(document.counts);
+  });
+
+  it('refuses a flat cell and a tolerance without a cell', async () => {
+    await refused(['enumerate', '--sites', '1-4', '--holes', '1', '--cell', '5,5,180'], /^invalid --cell: "5,5,180" \(γ must lie strictly between/);
+    await refused(['enumerate', '--sites', '1-4', '--holes', '1', '--cell', '5,5'], /^invalid --cell: "5,5" \(needs 3 comma-separated numbers\)/);
+    await refused(['enumerate', '--sites', '1-4', '--holes', '1', '--cell-tolerance', '0.1,2'], /^invalid --cell-tolerance: .* \(only with --cell\)/);
+  });
+});

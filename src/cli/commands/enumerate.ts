@@ -4,7 +4,8 @@
  */
 import { countStructures, enumerateStructures, type CountRow, type EnumerateOptions, type Structure } from '../../enumerate/index.ts';
 import { invalid } from '../../io/invalid.ts';
-import { hnfRows, patternToSheet } from '../../lattice/pattern.ts';
+import { hnfRows, patternCell, patternToSheet } from '../../lattice/pattern.ts';
+import { periodicityMismatch, periodicityOf, reducedPeriodicity } from '../../lattice/periodicity.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
@@ -24,6 +25,8 @@ const spec: CommandSpec = {
     eta: { kind: 'numberRange', min: 0, max: 1, placeholder: 'η1-η2', help: 'only hole densities in this range' },
     'max-elongation': { kind: 'number', min: 1, max: 1e6, placeholder: 'r', help: 'only cells whose reduced vectors differ in length by at most this ratio' },
     shard: { kind: 'shard', placeholder: 'i/n', help: 'do the i-th of n deterministic parts of the work (outputs of all n concatenate to the whole)' },
+    cell: { kind: 'numberList', min: 0, max: 1000, length: 3, exclusiveMin: true, placeholder: 'a,b,γ', help: 'only patterns whose reduced cell matches a measured one: lengths a, b in Å (at the --bond), angle γ in degrees' },
+    'cell-tolerance': { kind: 'numberList', min: 0, max: 180, length: 2, placeholder: 'Å,°', help: 'how far lengths and angle may differ for --cell (default 0.15,3)' },
     bond: { kind: 'number', min: 0, max: 10, exclusiveMin: true, placeholder: 'Å', help: 'B–B distance for the Cartesian cell and atoms (default 1.69)' },
     'counts-only': { kind: 'switch', help: 'count without listing (memory stays flat)' },
     json: JSON_FLAG,
@@ -41,9 +44,23 @@ function structureJson(structure: Structure, bond: number): Record<string, unkno
     cell: sheet.cell,
     atoms: sheet.atoms,
   };
+  const lattice = reducedPeriodicity(sheet.cell);
+  entry.lattice = { a: lattice.a, b: lattice.b, gamma_deg: lattice.gammaDeg };
   if (structure.phase !== undefined) entry.phase = structure.phase;
   entry.canonical = structure.canonical;
   return entry;
+}
+
+/** The --cell filter: keeps structures whose reduced cell is within the tolerance of the measured one. */
+function cellFilter(cell: number[] | undefined, tolerance: number[] | undefined): ((s: Structure, bond: number) => boolean) | undefined {
+  if (!cell) return undefined;
+  if (!(cell[2] > 0 && cell[2] < 180)) invalid('--cell', cell.join(','), 'γ must lie strictly between 0° and 180°');
+  const target = periodicityOf(cell[0], cell[1], cell[2]);
+  const [lengthTolerance, angleTolerance] = tolerance ?? [0.15, 3];
+  return (structure, bond) => {
+    const miss = periodicityMismatch(reducedPeriodicity(patternCell({ ...structure.pattern, bond })), target);
+    return miss.length <= lengthTolerance && miss.angleDeg <= angleTolerance;
+  };
 }
 
 function countTable(rows: readonly CountRow[]): string {
@@ -71,8 +88,10 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   if (flags['max-elongation'] !== undefined) options.maxElongation = flags['max-elongation'] as number;
   if (flags.shard) options.shard = flags.shard as { index: number; count: number };
   const json = flags.json === true;
+  if (flags['cell-tolerance'] !== undefined && flags.cell === undefined) invalid('--cell-tolerance', flags['cell-tolerance'], 'only with --cell');
+  const fits = cellFilter(flags.cell as number[] | undefined, flags['cell-tolerance'] as number[] | undefined);
 
-  if (flags['counts-only']) {
+  if (flags['counts-only'] && !fits) {
     const counts = countStructures(options);
     progress.done();
     io.out(json ? `${JSON.stringify({ counts, structures: [], counts_only: true })}\n` : `${countTable(counts)}\n`);
@@ -83,17 +102,21 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const tally = new Map<string, number>();
   const [n1, n2] = options.sites;
   const [k1, k2] = options.holes;
-  if (json) io.out('{"structures":[');
+  const list = !flags['counts-only'];
+  if (json && list) io.out('{"structures":[');
   let first = true;
   for (const structure of enumerateStructures(options)) {
+    if (fits && !fits(structure, bond)) continue;
     const key = `${structure.sites}/${structure.holes}`;
     tally.set(key, (tally.get(key) ?? 0) + 1);
+    if (!list) continue;
     if (json) {
       io.out(`${first ? '\n' : ',\n'}${JSON.stringify(structureJson(structure, bond))}`);
     } else {
       const phase = structure.phase ? `  = ${structure.phase}` : '';
       const vacancies = structure.pattern.vacancies.map(([i, j]) => `(${i},${j})`).join(' ');
-      io.out(`N=${structure.sites} k=${structure.holes} η=${structure.eta.toFixed(4)} supercell ${JSON.stringify(hnfRows(structure.pattern.supercell))} holes ${vacancies}${phase}\n`);
+      const cell = reducedPeriodicity(patternCell({ ...structure.pattern, bond }));
+      io.out(`N=${structure.sites} k=${structure.holes} η=${structure.eta.toFixed(4)}  cell ${cell.a.toFixed(2)} × ${cell.b.toFixed(2)} Å, γ ${cell.gammaDeg.toFixed(1)}°  supercell ${JSON.stringify(hnfRows(structure.pattern.supercell))} holes ${vacancies}${phase}\n`);
     }
     first = false;
   }
@@ -104,8 +127,9 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
       counts.push({ sites, holes, structures: tally.get(`${sites}/${holes}`) ?? 0 });
     }
   }
-  if (json) io.out(`\n],"counts":${JSON.stringify(counts)}}\n`);
-  else io.out(`\n${countTable(counts)}\n`);
+  if (json && list) io.out(`\n],"counts":${JSON.stringify(counts)}}\n`);
+  else if (json) io.out(`${JSON.stringify({ counts, structures: [], counts_only: true })}\n`);
+  else io.out(`${list ? '\n' : ''}${countTable(counts)}\n`);
   return 0;
 }
 
