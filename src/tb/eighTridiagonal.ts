@@ -186,23 +186,33 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
     let s = 0;
     let gamma = diag[l] - shift;
     let p = gamma * gamma;
-    if (p < flushBelow) {
-      p = 0;
-      gamma = 0;
-    }
     let split = -1;
     for (let i = l; i < m; i++) {
       const b2 = offSquared[i];
-      const r = p + b2;
-      const inverse = 1 / r;
       const alpha = diag[i + 1];
-      const nu = p * (alpha - shift) - b2 * gamma;
-      // p_next = γ_next²/c_next = ν²/(r·p); when p = 0 (c = 0) the limit is c_previous·b² (Parlett, ch. 8).
-      let nextP = p !== 0 ? (nu * nu) / (r * p) : c * b2;
-      let nextGamma = nu * inverse;
-      if (nextP < flushBelow) {
-        nextP = 0;
+      let r: number;
+      let nextGamma: number;
+      let nextP: number;
+      let nextC: number;
+      let nextS: number;
+      if (p >= flushBelow) {
+        r = p + b2;
+        const inverse = 1 / r;
+        const nu = p * (alpha - shift) - b2 * gamma;
+        nextGamma = nu * inverse;
+        // p_next = γ_next²/c_next = ν²/(r·p).
+        nextP = (nu * nu) / (r * p);
+        nextC = p * inverse;
+        nextS = b2 * inverse;
+      } else {
+        // Flushed pivot (FLUSH_SQUARED): the exact step for γ = p = 0, whose limit p_next = c_previous·b²
+        // (Parlett, ch. 8).
+        gamma = 0;
+        r = b2;
         nextGamma = 0;
+        nextP = c * b2;
+        nextC = 0;
+        nextS = 1;
       }
       diag[i] = gamma + (alpha - nextGamma);
       if (i > l) {
@@ -211,8 +221,8 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
         const around = Math.abs(diag[i - 1]) + Math.abs(diag[i]);
         if (settled <= eps2 * around * around || settled <= FLOOR_SQUARED) split = i - 1;
       }
-      c = p * inverse;
-      s = b2 * inverse;
+      c = nextC;
+      s = nextS;
       gamma = nextGamma;
       p = nextP;
     }
