@@ -1,7 +1,7 @@
 /**
  * Process entry of the CLI (`npm run -s lacuna -- <command>`): wires the real stdout, stderr and file system.
  */
-import { readFileSync, writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync, writeSync } from 'node:fs';
 import { runCli } from './run.ts';
 
 const chunks: string[] = [];
@@ -14,12 +14,30 @@ function out(text: string): void {
   if (pending > 1 << 16) flush();
 }
 
+const pause = new Int32Array(new SharedArrayBuffer(4));
+
+/**
+ * Writes everything to stdout synchronously (memory stays flat while enumerate streams). A pipe whose reader
+ * lags makes non-blocking stdout answer EAGAIN or write part of the buffer: wait a millisecond and go on.
+ */
+function writeAll(bytes: Uint8Array): void {
+  let offset = 0;
+  while (offset < bytes.length) {
+    try {
+      offset += writeSync(1, bytes, offset, bytes.length - offset);
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code !== 'EAGAIN') throw error;
+      Atomics.wait(pause, 0, 0, 1);
+    }
+  }
+}
+
 function flush(): void {
   if (chunks.length === 0) return;
   const text = chunks.join('');
   chunks.length = 0;
   pending = 0;
-  writeFileSync(1, text);
+  writeAll(Buffer.from(text, 'utf8'));
 }
 
 const code = await runCli(
