@@ -42,7 +42,8 @@ export function signedArea(cell: [Vec2, Vec2]): number {
   return cell[0][0] * cell[1][1] - cell[0][1] * cell[1][0];
 }
 
-/** True when every atom has z = 0 (the σ/π blocks of the Hamiltonian then decouple exactly). */
+/** True when every atom has the same height z (the σ/π blocks of the Hamiltonian then decouple exactly). */
 export function isPlanar(sheet: Sheet): boolean {
-  return sheet.atoms.every((atom) => atom[2] === 0);
+  const height = sheet.atoms.length > 0 ? sheet.atoms[0][2] : 0;
+  return sheet.atoms.every((atom) => atom[2] === height);
 }

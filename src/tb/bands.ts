@@ -114,7 +114,8 @@ export function diagonaliseRows(
         const b = vecIm[r * bands + m];
         sigma += a * a + b * b;
       }
-      sigmaWeight[row + m] = sigma;
+      // Rounding can push the sum of an orthonormal vector's squares a few ulps past 1.
+      sigmaWeight[row + m] = sigma > 1 ? 1 : sigma;
     }
     if (onProgress && ((k + 1) % PROGRESS_EVERY === 0 || k + 1 === count)) onProgress(k + 1, count);
   }

@@ -226,6 +226,11 @@ export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: F
       gamma = nextGamma;
       p = nextP;
     }
+    if (p < flushBelow) {
+      // The last pivot, flushed as in the loop (it becomes the last off-diagonal's square).
+      p = 0;
+      gamma = 0;
+    }
     offSquared[m - 1] = s * p;
     diag[m] = shift + gamma;
     if (split >= 0) {

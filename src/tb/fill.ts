@@ -81,7 +81,8 @@ export function observablesAt(spectrum: MeshSpectrum, fermi: number, smearing: n
     pi += f * (1 - w);
     band += f * energies[i];
   }
-  return { sigma: sigma * perState, pi: pi * perState, bandEnergy: band * perState };
+  // Weights are clamped to [0, 1]; a π count of −1e-17 would still be rounding, so clamp the sums at 0 too.
+  return { sigma: Math.max(0, sigma * perState), pi: Math.max(0, pi * perState), bandEnergy: band * perState };
 }
 
 /** Fills an already computed mesh spectrum. */

@@ -46,3 +46,17 @@ describe('bands and filling of enumerated patterns', () => {
     }
   });
 });
+
+describe('a flat sheet at any height', () => {
+  it('is planar (exact σ/π split: weights exactly 0 or 1), and its bands do not depend on the height', () => {
+    const alpha = patternToSheet(enumerateStructures({ sites: [9, 9], holes: [1, 1], isolated: true }).next().value!.pattern);
+    const raised = { ...alpha, atoms: alpha.atoms.map(([f1, f2]) => [f1, f2, 1] as [number, number, number]) };
+    const model = new TightBindingModel(raised, HARRISON);
+    expect(model.planar).toBe(true);
+    const path = autoPath(alpha.cell, 20);
+    const flat = computeBands(new TightBindingModel(alpha, HARRISON), path.kpoints);
+    const high = computeBands(model, path.kpoints);
+    for (const w of high.sigmaWeight) expect(w === 0 || w === 1).toBe(true);
+    for (let i = 0; i < flat.energies.length; i++) expect(high.energies[i]).toBeCloseTo(flat.energies[i], 12);
+  });
+});
