@@ -22,10 +22,12 @@ const ABSOLUTE_FLOOR = 2 ** -500;
 const ROTATION_UNSAFE = 2 ** -450;
 const FLOOR_SQUARED = ABSOLUTE_FLOOR * ABSOLUTE_FLOOR;
 /**
- * Root-free QR: a pivot square p = π² below (ε·2^−10·scale)² is set to 0 with its γ (|γ| ≤ |π|), a backward
- * perturbation of T below ε·scale/1024. Without it p = γ² of a tiny γ (shift equal to a diagonal entry to
- * 1e-160, say) is subnormal with a few digits, and ν²/(r·p) becomes inexact or 0/0. Keeping p ≥ this level
- * keeps r·p ≥ p² a normal number and underflow in ν² an absolute error far below ε²·scale² in the next p.
+ * Flush level of the root-free step, relative to the block's largest entry squared. A pivot square
+ * p = γ²/c ≥ γ² (the entry the next rotation eliminates against, squared) below (2^−10·ε·scale)² is replaced
+ * by 0 together with γ: the exact step for a T changed by less than 2^−10·ε·scale, so backward stable.
+ * Without it a tiny γ (a shift equal to a diagonal entry up to 1e-160, say) leaves p subnormal with a few
+ * digits, and ν²/(r·p) comes out wrong by ~1e-5 or as 0/0. With p = 0 or p ≥ this level, r·p ≥ p² is a
+ * normal number and underflow in ν² adds far less than (ε·scale)² to the next p.
  */
 const FLUSH_SQUARED = (EPS * 2 ** -10) ** 2;
 /** Smallest block scale the flush level is taken relative to: callers scale T's largest entry to ≥ 2^−100. */
@@ -143,6 +145,7 @@ function applyRotations(rows: Float64Array, n: number, l: number, m: number, rot
  * Eigenvalues only, by the root-free QR step of Pal, Walker and Kahan (Parlett, The Symmetric Eigenvalue Problem,
  * 1998, ch. 8, root-free QR): it carries the squared off-diagonal, so a rotation costs divisions but no square root.
  * `offSquared[i]` is T[i][i+1]²; both arrays are overwritten. Returns false when it did not converge.
+ * Pivots below 2^−10·ε times their block's largest entry are flushed to 0 (FLUSH_SQUARED).
  */
 export function tridiagonalEigenvaluesRootFree(diag: Float64Array, offSquared: Float64Array, n: number): boolean {
   const eps2 = EPS * EPS;
