@@ -101,6 +101,20 @@ export function embeddingEigenvalues({ n, re, im }: ComplexMatrix): number[] {
 }
 
 /**
+ * embeddingEigenvalues of H + σI minus σ, σ = 2‖H‖_F (the spectrum shifts exactly by σ; rounding adds ~ε·3‖H‖).
+ * For inputs with tiny or subnormal entries: ml-matrix's tql2 divides by an off-diagonal,
+ * (d[l+1] − d[l])/(2e[l]), which overflows for a subnormal e[l] beside a zero diagonal and ends in an exception
+ * (seen on [[0, 0, 1e-310], [0, 0, 0], [1e-310, 0, 1]]); with every diagonal entry near 2‖H‖ such e[l] deflate first.
+ */
+export function shiftedEmbeddingEigenvalues(h: ComplexMatrix): number[] {
+  const { n } = h;
+  const shift = 2 * frobenius(h);
+  const re = h.re.slice();
+  for (let i = 0; i < n; i++) re[i * n + i] += shift;
+  return embeddingEigenvalues({ n, re, im: h.im }).map((value) => value - shift);
+}
+
+/**
  * A random unitary U as a product of n Householder reflectors I − 2·v·v†/(v†v) (each unitary by construction),
  * so that U·diag(λ)·U† has exactly the spectrum λ without using the solver under test.
  */

@@ -85,6 +85,32 @@ describe('tridiagonal kernels', () => {
     }
   });
 
+  it('a Wilkinson shift equal to a tiny diagonal entry (1e-160 … subnormal) leaves the eigenvalues of δ = 0', () => {
+    // T = [[δ, 1.5, 0], [1.5, 4, 2], [0, 2, 1]]: the trailing block [[4, 2], [2, 1]] is singular, so the shift is
+    // exactly 0 and the first pivot is δ. At δ = 0 the characteristic polynomial is λ³ − 5λ² − 2.25λ + 2.25
+    // = (λ − 1/2)(λ² − 9λ/2 − 9/2): λ = 1/2, (9 ± 3√17)/4 (analytic, common practice); by Weyl's inequality
+    // the eigenvalues move by at most |δ| (Golub & Van Loan, Matrix Computations, 4th ed., §8.1; from memory).
+    const expected = [(9 - 3 * Math.sqrt(17)) / 4, 0.5, (9 + 3 * Math.sqrt(17)) / 4];
+    for (const delta of [1e-158, 1e-160, 3e-161, 2e-162, -1e-170, 1e-200, 1e-300, 1e-310, Number.MIN_VALUE]) {
+      for (const values of bothKernels([delta, 4, 1], [1.5, 2])) {
+        for (let k = 0; k < 3; k++) expect(Math.abs(values[k] - expected[k])).toBeLessThanOrEqual(1e-14);
+      }
+    }
+  });
+
+  it('a decoupled block of entries near 1e-120 beside an entry 1 converges (no 0/0 in the root-free step)', () => {
+    // Analytic 2×2 eigenvalues (a+d)/2 ± √(((a−d)/2)² + b²) (common practice); the tolerance is ε-relative to
+    // ‖T‖ = 1, the accuracy backward-stable QR promises (Golub & Van Loan, 4th ed., §8.3; from memory).
+    for (const [a, b, d] of [[-8e-121, 4e-131, 2e-136], [3e-110, 1e-112, -1e-125], [1e-140, 1e-141, 0]]) {
+      const mean = (a + d) / 2;
+      const radius = Math.hypot((a - d) / 2, b);
+      const expected = [mean - radius, mean + radius, 1];
+      for (const values of bothKernels([1, a, d], [0, b])) {
+        for (let k = 0; k < 3; k++) expect(Math.abs(values[k] - expected[k])).toBeLessThanOrEqual(1e-15);
+      }
+    }
+  });
+
   it('a NaN off-diagonal never deflates: both kernels report failure (false)', () => {
     const d = new Float64Array([1, 2, 3]);
     expect(diagonaliseTridiagonal(d.slice(), new Float64Array([1, NaN, 0]), 3)).toBe(false);
