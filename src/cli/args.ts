@@ -8,7 +8,7 @@ import { ValidationError, invalid } from '../io/invalid.ts';
 export type FlagKind =
   | { kind: 'switch' }
   | { kind: 'integer'; min: number; max: number }
-  | { kind: 'number'; min: number; max: number; exclusiveMin?: boolean }
+  | { kind: 'number'; min: number; max: number; exclusiveMin?: boolean; exclusiveMax?: boolean }
   | { kind: 'integerRange'; min: number; max: number }
   | { kind: 'numberRange'; min: number; max: number }
   | { kind: 'integerList'; min: number; max: number; maxLength: number }
@@ -47,12 +47,18 @@ function parseInteger(flag: string, text: string, min: number, max: number): num
   return value;
 }
 
-function parseNumber(flag: string, text: string, min: number, max: number, exclusiveMin = false): number {
+function parseNumber(flag: string, text: string, min: number, max: number, exclusiveMin = false, exclusiveMax = false): number {
   if (!NUMBER.test(text)) invalid(flag, text, 'not a number');
   const value = Number(text);
   if (!Number.isFinite(value)) invalid(flag, text, 'not a finite number');
   const low = exclusiveMin ? value > min : value >= min;
-  if (!(low && value <= max)) invalid(flag, text, `must be ${exclusiveMin ? 'above' : 'from'} ${min} ${exclusiveMin ? 'and at most' : 'to'} ${max}`);
+  const high = exclusiveMax ? value < max : value <= max;
+  if (!(low && high)) {
+    const range = exclusiveMin || exclusiveMax
+      ? `${exclusiveMin ? 'above' : 'at least'} ${min} and ${exclusiveMax ? 'below' : 'at most'} ${max}`
+      : `from ${min} to ${max}`;
+    invalid(flag, text, `must be ${range}`);
+  }
   return value;
 }
 
@@ -81,7 +87,7 @@ function parseValue(flag: string, spec: FlagSpec, text: string): FlagValue {
     case 'integer':
       return parseInteger(flag, text, spec.min, spec.max);
     case 'number':
-      return parseNumber(flag, text, spec.min, spec.max, spec.exclusiveMin);
+      return parseNumber(flag, text, spec.min, spec.max, spec.exclusiveMin, spec.exclusiveMax);
     case 'integerRange':
     case 'numberRange': {
       const [lowText, highText] = splitRange(flag, text);

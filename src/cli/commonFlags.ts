@@ -21,8 +21,8 @@ export const SMEARING_FLAG: FlagSpec = {
 };
 
 export const DOPING_FLAG: FlagSpec = {
-  kind: 'number', min: -3, max: 5, placeholder: 'δ',
-  help: 'extra electrons per atom, positive when given by the substrate (default 0; −3 … 5)',
+  kind: 'number', min: -3, max: 5, exclusiveMin: true, exclusiveMax: true, placeholder: 'δ',
+  help: 'extra electrons per atom, positive when given by the substrate (default 0; strictly between −3 and 5)',
 };
 
 export const JSON_FLAG: FlagSpec = { kind: 'switch', help: 'one JSON document on stdout' };

@@ -116,16 +116,16 @@ export function validateParameterObject(value: unknown, path = ''): ParameterSet
 }
 
 /** Parses and validates the text of a parameter file; throws ValidationError naming the first bad field. */
-export function parseParameterFile(content: string): ParameterSet {
-  if (typeof content !== 'string') invalid('parameters', content, 'expected the text of a JSON file');
+export function parseParameterFile(content: string, origin = 'parameters'): ParameterSet {
+  if (typeof content !== 'string') invalid(origin, content, 'expected the text of a JSON file');
   if (content.length > PARAMETER_LIMITS.fileBytes) {
-    invalid('parameters', `${content.length} characters`, `larger than ${PARAMETER_LIMITS.fileBytes} characters`);
+    invalid(origin, `${content.length} characters`, `larger than ${PARAMETER_LIMITS.fileBytes} characters`);
   }
   let value: unknown;
   try {
     value = JSON.parse(content);
-  } catch {
-    invalid('parameters', content, 'not valid JSON');
+  } catch (error) {
+    invalid(origin, content, `not valid JSON: ${(error as Error).message}`);
   }
   return validateParameterObject(value);
 }

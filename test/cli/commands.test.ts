@@ -162,3 +162,33 @@ describe('lacuna enumerate --cell', () => {
     await refused(['enumerate', '--sites', '1-4', '--holes', '1', '--cell-tolerance', '0.1,2'], /^invalid --cell-tolerance: .* \(only with --cell\)/);
   });
 });
+
+describe('lacuna enumerate: limits', () => {
+  it('refuses ranges that would not finish, with the estimate', async () => {
+    await refused(['enumerate', '--sites', '1-64', '--holes', '0-64', '--counts-only'], /^invalid --sites: "1-64" \(about [\d.]+e\+\d+ structures with these --holes; narrow the ranges/);
+  });
+
+  it('lists no sheet without atoms (a cell with every site vacant)', async () => {
+    const document = JSON.parse((await cli(['enumerate', '--sites', '1-3', '--holes', '0-3', '--json'])).stdout);
+    for (const s of document.structures) expect(s.atoms.length).toBeGreaterThan(0);
+    for (const row of document.counts) expect(row.holes).toBeLessThan(row.sites);
+  });
+});
+
+describe('tight-binding commands: limits', () => {
+  it('refuses a job estimated at hours, naming the flag that sizes it and a value that fits', async () => {
+    // 900 atoms on a 36×36 mesh: (2700³ + 900³) operations per k-point, about 10 h here.
+    const atoms: number[][] = [];
+    for (let i = 0; i < 30; i++) for (let j = 0; j < 30; j++) atoms.push([(i + 0.5) / 60, (j + 0.5) / 60]);
+    const sheet = JSON.stringify({ cell: [[60 * 1.69, 0], [30 * 1.69, 30 * 1.69 * Math.sqrt(3)]], atoms });
+    await refused(['fill', 'big.json'], /^invalid --mesh: 36 \(about [\d.]+ h for 900 atoms per cell; --mesh \d+ fits in an hour\)/, { 'big.json': sheet });
+    await refused(['bands', 'big.json', '--path', 'auto'], /^invalid --points: 300 \(about/, { 'big.json': sheet });
+  });
+
+  it('warns on stderr when no bond lies within the cutoff, and still answers', async () => {
+    const params = JSON.stringify({ name: 'short', source: 'test', onsite: { s: -1, p: 1 }, hopping: { ss_sigma: -1, sp_sigma: 1, pp_sigma: 1, pp_pi: -1 }, d0: 1.69, exponent: 2, cutoff: 1 });
+    const { code, stderr } = await cli(['fill', 'alpha', '--params', 'p.json', '--mesh', '4'], { 'p.json': params });
+    expect(code).toBe(0);
+    expect(stderr).toMatch(/^warning: no two atoms of alpha are closer than the cutoff 1 Å of short/);
+  });
+});

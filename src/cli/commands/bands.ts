@@ -1,13 +1,14 @@
 /**
  * `lacuna bands`: band energies and σ weights on an automatic k-path or on given k-points (DESIGN.md contract).
  */
-import { invalid } from '../../io/invalid.ts';
+import { invalid, ValidationError } from '../../io/invalid.ts';
 import { parseKpointsText } from '../../io/kpointsFile.ts';
 import { autoPath, computeBands, type BandResult, type KPath } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { writeNamedFile, type Command, type CliIo } from '../io.ts';
 import { JSON_FLAG, PARAMS_FLAG, SHEET_ARGUMENT } from '../commonFlags.ts';
-import { resolveModel } from '../parameters.ts';
+import { buildModel, resolveParameters } from '../parameters.ts';
+import { resolveSheet } from '../sheetArgument.ts';
 import { ProgressLine } from '../progress.ts';
 
 const spec: CommandSpec = {
@@ -51,12 +52,19 @@ function run(argv: readonly string[], io: CliIo): number {
   if (flags.kpoints !== undefined && flags.path !== undefined) invalid('--kpoints', flags.kpoints, 'give either --kpoints or --path auto, not both');
   if (flags.kpoints === undefined && flags.path === undefined) invalid('--path', undefined, 'give --path auto or --kpoints FILE');
   if (flags.points !== undefined && flags.path === undefined) invalid('--points', flags.points, 'only with --path auto');
-  const { sheet, params, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io);
+  const sheet = resolveSheet(positionals.SHEET, io);
+  const params = resolveParameters(flags.params as string | undefined, io);
 
   let kpoints: Float64Array;
   let path: KPath | undefined;
   if (flags.path === 'auto') {
-    path = autoPath(sheet.sheet.cell, (flags.points as number | undefined) ?? 300);
+    try {
+      path = autoPath(sheet.sheet.cell, (flags.points as number | undefined) ?? 300);
+    } catch (error) {
+      // The path's own minimum depends on the cell type; report it against the flag the user typed.
+      if (error instanceof ValidationError && error.field === 'points') throw new ValidationError('--points', error.value, error.why);
+      throw error;
+    }
     kpoints = path.kpoints;
   } else {
     const file = flags.kpoints as string;
@@ -68,13 +76,14 @@ function run(argv: readonly string[], io: CliIo): number {
     }
     kpoints = parseKpointsText(text, file);
   }
+  const count = kpoints.length / 2;
+  const model = buildModel(sheet, params, io, { flag: path ? '--points' : '--kpoints', value: count, kpoints: (p) => p });
 
   const progress = new ProgressLine(io.err, 'k-points');
   const result = computeBands(model, kpoints, { onProgress: (done, total) => progress.update(done, done / total) });
   progress.done();
 
   if (flags.csv !== undefined) writeNamedFile(io, '--csv', flags.csv as string, bandsCsv(kpoints, result, path));
-  const count = kpoints.length / 2;
   if (flags.json) {
     const document: Record<string, unknown> = {
       kpoints: rows(kpoints, count, 2),

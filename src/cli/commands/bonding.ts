@@ -8,7 +8,7 @@ import { fillSpectrum, meshSpectrum, sigmaBonding } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
-import { resolveModel } from '../parameters.ts';
+import { MESH_WORK, resolveModel } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
 
 const spec: CommandSpec = {
@@ -22,7 +22,7 @@ const RULE_NOTE = 'counting rule δ = 8/(3(1 − η)) − 3: the classic estimat
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  const { sheet, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io);
+  const { sheet, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io, MESH_WORK(flags));
   const smearing = (flags.smearing as number | undefined) ?? 0.1;
   const progress = new ProgressLine(io.err, 'k-points');
   const spectrum = meshSpectrum(model, { mesh: flags.mesh as number | undefined, onProgress: (done, total) => progress.update(done, done / total) });

@@ -63,6 +63,30 @@ function cellFilter(cell: number[] | undefined, tolerance: number[] | undefined)
   };
 }
 
+/** Most structures a run may be expected to produce before it is refused (about an hour at 1e6 per second). */
+export const MAX_EXPECTED_STRUCTURES = 4e9;
+
+/**
+ * Expected number of structures in the range, to refuse runs that would not end: σ(N)·C(N, k)/(12N) per (N, k)
+ * — the σ(N) supercells of index N, each with C(N, k) labelings, up to the 12 operations and N translations (the
+ * leading term of Burnside's count) — times the chance exp(−3k²/N) that k random holes have no nearest-neighbour
+ * pair (3N bonds, each joining two holes with probability (k/N)²) when --isolated. An order of magnitude only.
+ */
+export function expectedStructures(sites: [number, number], holes: [number, number], isolated: boolean): number {
+  let total = 0;
+  for (let n = sites[0]; n <= sites[1]; n++) {
+    let divisorSum = 0;
+    for (let d = 1; d <= n; d++) if (n % d === 0) divisorSum += d;
+    let binomial = 1; // C(n, k), built up from k = 0
+    for (let k = 0; k <= Math.min(holes[1], n); k++) {
+      if (k > 0) binomial = (binomial * (n - k + 1)) / k;
+      if (k < holes[0]) continue;
+      total += ((divisorSum * binomial) / (12 * n)) * (isolated ? Math.exp((-3 * k * k) / n) : 1);
+    }
+  }
+  return total;
+}
+
 function countTable(rows: readonly CountRow[]): string {
   const lines = ['sites  holes   η        structures'];
   for (const row of rows) {
@@ -75,6 +99,10 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const { flags } = parseArgs(spec, argv);
   if (!flags.sites) invalid('--sites', undefined, 'required, e.g. --sites 1-12');
   if (!flags.holes) invalid('--holes', undefined, 'required, e.g. --holes 1-3');
+  const expected = expectedStructures(flags.sites as [number, number], flags.holes as [number, number], flags.isolated === true);
+  if (expected > MAX_EXPECTED_STRUCTURES) {
+    invalid('--sites', (flags.sites as number[]).join('-'), `about ${expected.toExponential(1)} structures with these --holes; narrow the ranges, add --isolated, or split the job with --shard`);
+  }
   const bond = (flags.bond as number | undefined) ?? 1.69;
   const progress = new ProgressLine(io.err, 'labelings');
   const options: EnumerateOptions = {
@@ -92,7 +120,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const fits = cellFilter(flags.cell as number[] | undefined, flags['cell-tolerance'] as number[] | undefined);
 
   if (flags['counts-only'] && !fits) {
-    const counts = countStructures(options);
+    const counts = countStructures(options).filter((row) => row.holes < row.sites);
     progress.done();
     io.out(json ? `${JSON.stringify({ counts, structures: [], counts_only: true })}\n` : `${countTable(counts)}\n`);
     return 0;
@@ -106,6 +134,8 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   if (json && list) io.out('{"structures":[');
   let first = true;
   for (const structure of enumerateStructures(options)) {
+    // Every site vacant (only at N = 1): a labeling, but no sheet — nothing to list or read back.
+    if (structure.holes === structure.sites) continue;
     if (fits && !fits(structure, bond)) continue;
     const key = `${structure.sites}/${structure.holes}`;
     tally.set(key, (tally.get(key) ?? 0) + 1);
@@ -123,7 +153,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   progress.done();
   const counts: CountRow[] = [];
   for (let sites = n1; sites <= n2; sites++) {
-    for (let holes = k1; holes <= Math.min(k2, sites); holes++) {
+    for (let holes = k1; holes <= Math.min(k2, sites - 1); holes++) {
       counts.push({ sites, holes, structures: tally.get(`${sites}/${holes}`) ?? 0 });
     }
   }

@@ -5,7 +5,7 @@ import { fill } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import type { Command, CliIo } from '../io.ts';
 import { DOPING_FLAG, JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
-import { resolveModel } from '../parameters.ts';
+import { MESH_WORK, resolveModel } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
 
 const spec: CommandSpec = {
@@ -23,7 +23,7 @@ const spec: CommandSpec = {
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  const { sheet, params, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io);
+  const { sheet, params, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io, MESH_WORK(flags));
   const progress = new ProgressLine(io.err, 'k-points');
   const result = fill(model, {
     doping: flags.doping as number | undefined,

@@ -3,12 +3,13 @@
  */
 import { enumerateStructures, type EnumerateOptions } from '../../enumerate/index.ts';
 import { invalid } from '../../io/invalid.ts';
-import { hnfRows } from '../../lattice/pattern.ts';
-import { rankByBandEnergy } from '../../tb/index.ts';
+import { hnfRows, patternToSheet } from '../../lattice/pattern.ts';
+import { DEFAULT_MESH, rankByBandEnergy } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { DOPING_FLAG, JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SMEARING_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
 import { resolveParameters } from '../parameters.ts';
+import { estimatedSeconds, MAX_ESTIMATED_SECONDS } from '../workEstimate.ts';
 
 /** Most patterns one ranking solves: each needs a full mesh, about 0.1 s for an 8-atom cell at M = 36. */
 export const MAX_RANKED = 2000;
@@ -44,6 +45,9 @@ function run(argv: readonly string[], io: CliIo): number {
     const name = structure.phase ?? `N${structure.sites}k${structure.holes}:${JSON.stringify(hnfRows(structure.pattern.supercell))}${JSON.stringify(structure.pattern.vacancies)}`;
     patterns.push({ name, pattern: structure.pattern });
   }
+  const mesh = (flags.mesh as number | undefined) ?? DEFAULT_MESH;
+  const seconds = patterns.reduce((sum, p) => sum + estimatedSeconds(patternToSheet(p.pattern), mesh * mesh), 0);
+  if (seconds > MAX_ESTIMATED_SECONDS) invalid('--mesh', mesh, `about ${(seconds / 3600).toFixed(1)} h for ${patterns.length} patterns; use a smaller mesh or narrow --sites, --holes or --eta`);
   const ranking = rankByBandEnergy(patterns, params, {
     doping: flags.doping as number | undefined,
     mesh: flags.mesh as number | undefined,
