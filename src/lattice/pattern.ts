@@ -4,17 +4,12 @@
 import { latticePoint } from './triangular.ts';
 import type { Pattern, Sheet } from './sheet.ts';
 import { reduceSite, toHnf, type Hnf } from './hnf.ts';
+import { wrapFraction } from './reducedCell.ts';
 
 /** Cell rows (Å) of a pattern's supercell: A1 = a·a1, A2 = b·a1 + c·a2. */
 export function patternCell(pattern: Pattern): Sheet['cell'] {
   const { a, b, c } = pattern.supercell;
   return [latticePoint(a, 0, pattern.bond), latticePoint(b, c, pattern.bond)];
-}
-
-function wrap(f: number): number {
-  const w = f - Math.floor(f);
-  // Fold rounding noise (1 − 1e-16) and −0 back to 0 so sites have one representation.
-  return w > 1 - 1e-12 || w < 1e-12 ? 0 : w;
 }
 
 /**
@@ -29,7 +24,7 @@ export function patternToSheet(pattern: Pattern): Sheet {
     for (let i = 0; i < a; i++) {
       if (vacant.has(j * a + i)) continue;
       const f2 = j / c;
-      atoms.push([wrap((i - f2 * b) / a), wrap(f2), 0]);
+      atoms.push([wrapFraction((i - f2 * b) / a), wrapFraction(f2), 0]);
     }
   }
   const sheet: Sheet = { cell: patternCell(pattern), atoms };

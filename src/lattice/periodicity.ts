@@ -4,6 +4,7 @@
  * cell vectors. Used to match enumerated patterns to a measured cell.
  */
 import { gaussReduce } from './reduce.ts';
+import { cellMetrics } from './reducedCell.ts';
 import type { Vec2 } from './sheet.ts';
 
 /** Reduced-cell lengths (Å) and angle (degrees). */
@@ -15,9 +16,7 @@ export interface Periodicity {
 
 export function reducedPeriodicity(cell: readonly [Vec2, Vec2]): Periodicity {
   const { u, v } = gaussReduce(cell[0], cell[1]);
-  const a = Math.hypot(u[0], u[1]);
-  const b = Math.hypot(v[0], v[1]);
-  const gammaDeg = (Math.atan2(Math.abs(u[0] * v[1] - u[1] * v[0]), u[0] * v[0] + u[1] * v[1]) * 180) / Math.PI;
+  const { a, b, gammaDeg } = cellMetrics([u, v]);
   return { a, b, gammaDeg };
 }
 

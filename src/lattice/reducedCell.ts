@@ -28,10 +28,13 @@ export function cellMetrics(cell: readonly [Vec2, Vec2]): CellMetrics {
   return { a, b, gammaDeg: (Math.atan2(Math.abs(cross), ax * bx + ay * by) * 180) / Math.PI, area: Math.abs(cross) };
 }
 
-/** Wraps a fractional coordinate to [0, 1) (−0 and 1 − ε from rounding come back as 0 or stay below 1). */
+/** Fractions this close to 0 or 1 are rounding noise of a lattice site and come back as exactly 0. */
+const WRAP_TOLERANCE = 1e-12;
+
+/** Wraps a fractional coordinate to [0, 1); −0 and values within 1e-12 of 0 or 1 come back as 0. */
 export function wrapFraction(f: number): number {
   const w = f - Math.floor(f);
-  return w >= 1 || w === 0 ? 0 : w;
+  return w > 1 - WRAP_TOLERANCE || w < WRAP_TOLERANCE ? 0 : w;
 }
 
 /** The same sheet in its right-handed reduced cell; atoms re-expressed in it and wrapped to [0, 1). */

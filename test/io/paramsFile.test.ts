@@ -34,7 +34,7 @@ describe('parseParameterFile(text)', () => {
 
   it('names the field of every kind of mistake', () => {
     const cases: [string, RegExp][] = [
-      ['{', /^invalid parameters: "\{" \(not valid JSON\)$/],
+      ['{', /^invalid parameters: "\{" \(not valid JSON: /],
       ['[1]', /^invalid parameters: \[1\] \(expected an object\)$/],
       [change({ d0: 0 }), /^invalid d0: 0 \(must lie in \(0, 10\] Å\)$/],
       [change({ d0: -1 }), /^invalid d0: -1/],

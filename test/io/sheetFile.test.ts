@@ -129,3 +129,19 @@ describe('parseSheetObject(value): pattern form fields', () => {
     expect(parsed.sheet.atoms).toHaveLength(2);
   });
 });
+
+describe('the sheet presets', () => {
+  it('pass the same validation as a user file (pattern form of the sheet contract)', async () => {
+    const { readdirSync, readFileSync } = await import('node:fs');
+    const { SHEET_PRESETS } = await import('../../src/lattice/presets.ts');
+    const folder = new URL('../../presets/sheets/', import.meta.url);
+    const files = readdirSync(folder).filter((f) => f.endsWith('.json'));
+    expect(files.length).toBe(SHEET_PRESETS.length);
+    for (const file of files) {
+      const { name, bond, supercell, vacancies } = JSON.parse(readFileSync(new URL(file, folder), 'utf8'));
+      const parsed = parseSheetObject({ name, bond, supercell, vacancies });
+      const preset = SHEET_PRESETS.find((p) => p.name === name)!;
+      expect(parsed.pattern).toEqual(preset.pattern);
+    }
+  });
+});

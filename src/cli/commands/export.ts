@@ -22,7 +22,9 @@ const spec: CommandSpec = {
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
   const { sheet, label } = resolveSheet(positionals.SHEET, io);
-  const named = sheet.name === undefined ? { ...sheet, name: label } : sheet;
+  // An unnamed sheet from a file takes the file's base name (not its path) as the data name.
+  const fallback = label.replace(/^.*[\\/]/, '').replace(/\.json$/i, '') || 'sheet';
+  const named = sheet.name === undefined ? { ...sheet, name: fallback } : sheet;
   const format = (flags.format as string | undefined) ?? 'json';
   const text = format === 'cif' ? sheetToCif(named) : format === 'xyz' ? sheetToXyz(named) : sheetToJson(named);
   if (flags.out !== undefined) writeNamedFile(io, '--out', flags.out as string, text);
