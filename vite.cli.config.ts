@@ -1,0 +1,16 @@
+import { builtinModules } from 'node:module';
+import { defineConfig } from 'vite';
+
+// The CLI bundled for plain Node (bin/lacuna.mjs runs it when it is newer than the sources), so a call does not
+// pay for compiling TypeScript on every start.
+export default defineConfig({
+  publicDir: false,
+  build: {
+    outDir: 'dist/cli',
+    emptyOutDir: true,
+    target: 'node20',
+    minify: false,
+    lib: { entry: 'src/cli/main.ts', formats: ['es'], fileName: () => 'lacuna.js' },
+    rollupOptions: { external: [...builtinModules, ...builtinModules.map((m) => `node:${m}`)] },
+  },
+});
