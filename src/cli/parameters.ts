@@ -8,7 +8,9 @@ import { DEFAULT_PARAMETERS, PARAMETER_PRESETS, findParameterPreset, type Parame
 import { TightBindingModel } from '../tb/model.ts';
 import type { CliIo } from './io.ts';
 import { guardSolve } from './workEstimate.ts';
-import { DEFAULT_MESH } from '../tb/meshSpectrum.ts';
+import { DEFAULT_SMEARING } from '../tb/fill.ts';
+import { DEFAULT_MESH, meshSpectrum, type MeshSpectrum } from '../tb/meshSpectrum.ts';
+import { ProgressLine } from './progress.ts';
 import { resolveSheet, type SheetArgument } from './sheetArgument.ts';
 
 export function resolveParameters(value: string | undefined, io: CliIo): ParameterSet {
@@ -58,3 +60,17 @@ export function buildModel(sheet: SheetArgument, params: ParameterSet, io: CliIo
 
 /** The k-point count of the --mesh flag: M² (filling uses each pair k, −k once, but the bound is what counts). */
 export const MESH_WORK = (flags: Record<string, unknown>): JobSize => ({ flag: '--mesh', value: (flags.mesh as number | undefined) ?? DEFAULT_MESH, kpoints: (m: number) => m * m });
+
+/** The mesh spectrum of a command's SHEET, --params, --mesh and --smearing, with a progress line on stderr. */
+export function resolveSpectrum(sheetText: string, flags: Record<string, unknown>, io: CliIo): {
+  sheet: SheetArgument;
+  model: TightBindingModel;
+  spectrum: MeshSpectrum;
+  smearing: number;
+} {
+  const { sheet, model } = resolveModel(sheetText, flags.params as string | undefined, io, MESH_WORK(flags));
+  const progress = new ProgressLine(io.err, 'k-points');
+  const spectrum = meshSpectrum(model, { mesh: flags.mesh as number | undefined, onProgress: (done, total) => progress.update(done, done / total) });
+  progress.done();
+  return { sheet, model, spectrum, smearing: (flags.smearing as number | undefined) ?? DEFAULT_SMEARING };
+}

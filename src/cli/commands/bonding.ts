@@ -4,12 +4,11 @@
  */
 import { estimateHoleDensity } from '../../lattice/geometry.ts';
 import { holeDensity } from '../../lattice/pattern.ts';
-import { fillSpectrum, meshSpectrum, sigmaBonding } from '../../tb/index.ts';
+import { fillSpectrum, sigmaBonding } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
-import { MESH_WORK, resolveModel } from '../parameters.ts';
-import { ProgressLine } from '../progress.ts';
+import { resolveSpectrum } from '../parameters.ts';
 
 const spec: CommandSpec = {
   name: 'bonding',
@@ -22,11 +21,7 @@ const RULE_NOTE = 'counting rule δ = 8/(3(1 − η)) − 3: the classic estimat
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  const { sheet, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io, MESH_WORK(flags));
-  const smearing = (flags.smearing as number | undefined) ?? 0.1;
-  const progress = new ProgressLine(io.err, 'k-points');
-  const spectrum = meshSpectrum(model, { mesh: flags.mesh as number | undefined, onProgress: (done, total) => progress.update(done, done / total) });
-  progress.done();
+  const { sheet, model, spectrum, smearing } = resolveSpectrum(positionals.SHEET, flags, io);
   const estimate = sheet.pattern ? undefined : estimateHoleDensity(sheet.sheet);
   const eta = sheet.pattern ? holeDensity(sheet.pattern) : estimate!.eta;
   const analysis = sigmaBonding(spectrum, { holeDensity: eta, holeDensityEstimated: estimate !== undefined && !estimate.exact, smearing });

@@ -1,12 +1,11 @@
 /**
  * `lacuna dos`: total and σ/π-projected density of states, by Gaussian broadening or the linear triangle method.
  */
-import { energyGrid, fillSpectrum, gaussianDos, meshSpectrum, triangleDos, type DosResult } from '../../tb/index.ts';
+import { energyGrid, fillSpectrum, gaussianDos, triangleDos, type DosResult } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
 import { writeNamedFile, type Command, type CliIo } from '../io.ts';
-import { MESH_WORK, resolveModel } from '../parameters.ts';
-import { ProgressLine } from '../progress.ts';
+import { resolveSpectrum } from '../parameters.ts';
 
 const spec: CommandSpec = {
   name: 'dos',
@@ -31,11 +30,7 @@ function dosCsv(dos: DosResult): string {
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  const { sheet, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io, MESH_WORK(flags));
-  const smearing = (flags.smearing as number | undefined) ?? 0.1;
-  const progress = new ProgressLine(io.err, 'k-points');
-  const spectrum = meshSpectrum(model, { mesh: flags.mesh as number | undefined, onProgress: (done, total) => progress.update(done, done / total) });
-  progress.done();
+  const { sheet, spectrum, smearing } = resolveSpectrum(positionals.SHEET, flags, io);
   const grid = energyGrid(spectrum, { points: (flags.points as number | undefined) ?? 2001 });
   const dos = flags.method === 'triangle' ? triangleDos(spectrum, grid) : gaussianDos(spectrum, grid, smearing);
   const fermi = fillSpectrum(spectrum, { smearing }).fermi;
