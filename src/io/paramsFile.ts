@@ -5,7 +5,8 @@
  * neighbour lists explode and are far outside any two-centre fit); name ≤ 100 characters, source and
  * provenance ≤ 4000; the file itself ≤ 1 MB.
  */
-import { invalid } from './invalid.ts';
+import { requireRecord } from './fields.ts';
+import { fieldPath, invalid } from './invalid.ts';
 import type { ParameterSet } from '../tb/params.ts';
 
 export const PARAMETER_LIMITS = {
@@ -23,28 +24,13 @@ const REQUIRED_FIELDS = ['name', 'source', 'onsite', 'hopping', 'd0', 'exponent'
 const ONSITE_FIELDS = ['s', 'p'] as const;
 const HOPPING_FIELDS = ['ss_sigma', 'sp_sigma', 'pp_sigma', 'pp_pi'] as const;
 
-function isRecord(value: unknown): value is Record<string, unknown> {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
-
-function requireRecord(value: unknown, field: string): Record<string, unknown> {
-  if (!isRecord(value)) invalid(field, value, 'expected an object');
-  return value;
-}
-
 function checkKeys(record: Record<string, unknown>, path: string, allowed: readonly string[], required: readonly string[]): void {
   for (const key of Object.keys(record)) {
-    if (!allowed.includes(key)) invalid(join(path, key), record[key], `unknown field; expected ${allowed.join(', ')}`);
+    if (!allowed.includes(key)) invalid(fieldPath(path, key), record[key], `unknown field; expected ${allowed.join(', ')}`);
   }
   for (const key of required) {
-    if (!Object.hasOwn(record, key)) invalid(join(path, key), undefined, 'required field');
+    if (!Object.hasOwn(record, key)) invalid(fieldPath(path, key), undefined, 'required field');
   }
-}
-
-/** Field path of `key` under `path`: dotted for plain names, bracketed and quoted otherwise (e.g. `[""]`). */
-function join(path: string, key: string): string {
-  if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(key)) return `${path}[${JSON.stringify(key)}]`;
-  return path === '' ? key : `${path}.${key}`;
 }
 
 function text(value: unknown, field: string, max: number, allowEmpty: boolean): string {
@@ -84,33 +70,33 @@ function energy(value: unknown, field: string): number {
 export function validateParameterObject(value: unknown, path = ''): ParameterSet {
   const root = requireRecord(value, path === '' ? 'parameters' : path);
   checkKeys(root, path, TOP_FIELDS, REQUIRED_FIELDS);
-  const name = text(root.name, join(path, 'name'), PARAMETER_LIMITS.name, false);
-  const source = text(root.source, join(path, 'source'), PARAMETER_LIMITS.text, false);
-  const onsitePath = join(path, 'onsite');
+  const name = text(root.name, fieldPath(path, 'name'), PARAMETER_LIMITS.name, false);
+  const source = text(root.source, fieldPath(path, 'source'), PARAMETER_LIMITS.text, false);
+  const onsitePath = fieldPath(path, 'onsite');
   const onsiteRecord = requireRecord(root.onsite, onsitePath);
   checkKeys(onsiteRecord, onsitePath, ONSITE_FIELDS, ONSITE_FIELDS);
-  const hoppingPath = join(path, 'hopping');
+  const hoppingPath = fieldPath(path, 'hopping');
   const hoppingRecord = requireRecord(root.hopping, hoppingPath);
   checkKeys(hoppingRecord, hoppingPath, HOPPING_FIELDS, HOPPING_FIELDS);
   const set: ParameterSet = {
     name: name.trim(),
     source,
     onsite: {
-      s: energy(onsiteRecord.s, join(onsitePath, 's')),
-      p: energy(onsiteRecord.p, join(onsitePath, 'p')),
+      s: energy(onsiteRecord.s, fieldPath(onsitePath, 's')),
+      p: energy(onsiteRecord.p, fieldPath(onsitePath, 'p')),
     },
     hopping: {
-      ss_sigma: energy(hoppingRecord.ss_sigma, join(hoppingPath, 'ss_sigma')),
-      sp_sigma: energy(hoppingRecord.sp_sigma, join(hoppingPath, 'sp_sigma')),
-      pp_sigma: energy(hoppingRecord.pp_sigma, join(hoppingPath, 'pp_sigma')),
-      pp_pi: energy(hoppingRecord.pp_pi, join(hoppingPath, 'pp_pi')),
+      ss_sigma: energy(hoppingRecord.ss_sigma, fieldPath(hoppingPath, 'ss_sigma')),
+      sp_sigma: energy(hoppingRecord.sp_sigma, fieldPath(hoppingPath, 'sp_sigma')),
+      pp_sigma: energy(hoppingRecord.pp_sigma, fieldPath(hoppingPath, 'pp_sigma')),
+      pp_pi: energy(hoppingRecord.pp_pi, fieldPath(hoppingPath, 'pp_pi')),
     },
-    d0: bounded(root.d0, join(path, 'd0'), 0, PARAMETER_LIMITS.d0, true, 'Å'),
-    exponent: bounded(root.exponent, join(path, 'exponent'), 0, PARAMETER_LIMITS.exponent, false, ''),
-    cutoff: bounded(root.cutoff, join(path, 'cutoff'), 0, PARAMETER_LIMITS.cutoff, true, 'Å'),
+    d0: bounded(root.d0, fieldPath(path, 'd0'), 0, PARAMETER_LIMITS.d0, true, 'Å'),
+    exponent: bounded(root.exponent, fieldPath(path, 'exponent'), 0, PARAMETER_LIMITS.exponent, false, ''),
+    cutoff: bounded(root.cutoff, fieldPath(path, 'cutoff'), 0, PARAMETER_LIMITS.cutoff, true, 'Å'),
   };
   if (root.provenance !== undefined) {
-    set.provenance = text(root.provenance, join(path, 'provenance'), PARAMETER_LIMITS.text, true);
+    set.provenance = text(root.provenance, fieldPath(path, 'provenance'), PARAMETER_LIMITS.text, true);
   }
   return set;
 }

@@ -35,7 +35,7 @@ describe('parseParameterFile(text)', () => {
   it('names the field of every kind of mistake', () => {
     const cases: [string, RegExp][] = [
       ['{', /^invalid parameters: "\{" \(not valid JSON: /],
-      ['[1]', /^invalid parameters: \[1\] \(expected an object\)$/],
+      ['[1]', /^invalid parameters: \[1\] \(not a JSON object\)$/],
       [change({ d0: 0 }), /^invalid d0: 0 \(must lie in \(0, 10\] Å\)$/],
       [change({ d0: -1 }), /^invalid d0: -1/],
       [change({ cutoff: 0 }), /^invalid cutoff: 0/],
@@ -51,7 +51,7 @@ describe('parseParameterFile(text)', () => {
       [change({ onsite: { s: 1, p: 2, d: 3 } }), /^invalid onsite\.d: 3 \(unknown field/],
       [change({ hopping: { ...VALID.hopping, pp_pi: null } }), /^invalid hopping\.pp_pi: null \(expected a number\)$/],
       [change({ hopping: { ...VALID.hopping, sp_sigma: 1000 } }), /^invalid hopping\.sp_sigma: 1000 \(\|value\| must be at most 100 eV\)$/],
-      [change({ hopping: 3 }), /^invalid hopping: 3 \(expected an object\)$/],
+      [change({ hopping: 3 }), /^invalid hopping: 3 \(not a JSON object\)$/],
       [JSON.stringify({ ...VALID, d0: undefined }), /^invalid d0: missing \(required field\)$/],
       [change({}).replace('"d0":1.69', '"d0":1e400'), /^invalid d0: Infinity \(must be finite\)$/],
     ];
