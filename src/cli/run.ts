@@ -11,12 +11,14 @@ import { dosCommand } from './commands/dos.ts';
 import { enumerateCommand } from './commands/enumerate.ts';
 import { exportCommand } from './commands/export.ts';
 import { fillCommand } from './commands/fill.ts';
+import { geometryCommand } from './commands/geometry.ts';
 import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
 import type { CliIo, Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
-  enumerateCommand, bandsCommand, fillCommand, dosCommand, bondingCommand, rankCommand, exportCommand, presetsCommand, benchCommand,
+  enumerateCommand, geometryCommand, bandsCommand, fillCommand, dosCommand, bondingCommand, rankCommand, exportCommand, presetsCommand,
+  benchCommand,
 ];
 
 function overview(): string {

@@ -192,3 +192,22 @@ describe('tight-binding commands: limits', () => {
     expect(stderr).toMatch(/^warning: no two atoms of alpha are closer than the cutoff 1 Å of short/);
   });
 });
+
+describe('lacuna geometry', () => {
+  it('reads the α sheet: six 5-fold and two 6-fold atoms around one hexagonal hole (Tang & Ismail-Beigi, PRL 99, 115501 (2007))', async () => {
+    const { code, stdout } = await cli(['geometry', 'alpha', '--json']);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    expect(document.coordination).toEqual({ '5': 6, '6': 2 });
+    expect(document.holes.hexagonal).toBe(1);
+    expect(document.phase).toBe('alpha');
+    expect(document.hole_density).toBeCloseTo(1 / 9, 12);
+  });
+
+  it('recognises an exported χ3 as the same pattern (β12/χ3 of Feng et al., Nat. Chem. 8, 563 (2016): 4- and 5-fold atoms)', async () => {
+    const exported = (await cli(['export', 'chi3', '--format', 'json'])).stdout;
+    const document = JSON.parse((await cli(['geometry', 'chi3.json', '--json'], { 'chi3.json': exported })).stdout);
+    expect(document.phase).toBe('chi3');
+    expect(document.coordination).toEqual({ '4': 2, '5': 2 });
+  });
+});
