@@ -31,7 +31,7 @@ export class TightBindingModel {
   readonly parameters: ParameterSet;
   /** Atoms per cell. */
   readonly atoms: number;
-  /** All atoms at z = 0: the σ and π blocks decouple exactly. */
+  /** All atoms at one height: the σ and π blocks decouple exactly. */
   readonly planar: boolean;
   /** Ordered bonds (both directions) within the cutoff. */
   readonly bondCount: number;
@@ -75,8 +75,8 @@ export class TightBindingModel {
   /**
    * Writes H(k) (or one of its planar blocks) into re, im (length ≥ size², overwritten), k = (kx, ky) Å⁻¹.
    * The result is exactly Hermitian (averaged with its conjugate transpose, which only removes rounding).
-   * Entries below TINY_ENTRY in magnitude (far below rounding of eV-sized entries) are set to 0: squares of
-   * such entries underflow, which costs the eigensolver accuracy. Allocates nothing.
+   * Entries below TINY_ENTRY in magnitude (far below rounding of eV-sized entries) are set to 0, so that no
+   * subnormal numbers reach the eigensolver (which handles them correctly, but slowly). Allocates nothing.
    */
   hamiltonian(kx: number, ky: number, block: HamiltonianBlock, re: Float64Array, im: Float64Array): void {
     const width = BLOCK_WIDTH[block];
