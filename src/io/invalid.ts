@@ -12,7 +12,8 @@ export class ValidationError extends Error {
     /** Why it is refused. */
     readonly why: string,
   ) {
-    super(`invalid ${field}: ${value} (${why})`);
+    // One line, always: a reason quoting raw input (e.g. a JSON parser's message) may carry newlines or tabs.
+    super(`invalid ${oneLine(field)}: ${oneLine(value)} (${oneLine(why)})`);
   }
 }
 
@@ -41,6 +42,12 @@ function briefCopy(value: unknown, depth: number): unknown {
   for (const key of keys.slice(0, BRIEF_ENTRIES)) out[briefCopy(key, 0) as string] = briefCopy((value as Record<string, unknown>)[key], depth - 1);
   if (keys.length > BRIEF_ENTRIES) out['…'] = '…';
   return out;
+}
+
+/** Control characters written as JSON escapes (\n, \t, \u0000 …), so a message stays on one line. */
+function oneLine(text: string): string {
+  // eslint-disable-next-line no-control-regex
+  return text.replace(/[\u0000-\u001f\u007f\u2028\u2029]/g, (c) => JSON.stringify(c).slice(1, -1));
 }
 
 /** Renders any value compactly and safely for an error message (deep values cut, long text cut). */

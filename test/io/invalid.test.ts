@@ -35,6 +35,12 @@ describe('invalid(field, value, why)', () => {
     }
   });
 
+  it('keeps every message on one line, whatever the reason quotes', () => {
+    const error = new ValidationError('sheet', '"x"', 'not JSON: Unexpected token in\nline 2\tcol 3');
+    expect(error.message).toBe('invalid sheet: "x" (not JSON: Unexpected token in\\nline 2\\tcol 3)');
+    expect(error.message).not.toMatch(/[\n\r\t]/);
+  });
+
   it('fieldPath quotes keys that are not plain names', () => {
     expect(fieldPath('', 'cell')).toBe('cell');
     expect(fieldPath('hopping', 'ss_sigma')).toBe('hopping.ss_sigma');

@@ -42,6 +42,7 @@ describe('k-points file fuzzing', () => {
         } catch (error) {
           if (!(error instanceof ValidationError)) throw error;
           expect(error.message).toMatch(/^invalid \S/);
+          expect(error.message).not.toMatch(/[\n\r]/);
         }
       }),
       { numRuns: 10_000 },

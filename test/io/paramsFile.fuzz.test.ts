@@ -104,7 +104,7 @@ describe('parseParameterFile fuzzing', () => {
       } catch (error) {
         if (!(error instanceof ValidationError)) return false;
         refused++;
-        return error.field.length > 0 && error.message.startsWith(`invalid ${error.field}: `) && !/\n\s+at /.test(error.message);
+        return error.field.length > 0 && error.message.startsWith(`invalid ${error.field}: `) && !/[\n\r]/.test(error.message);
       }
       return false;
     }), { numRuns: 10_000 });

@@ -36,6 +36,7 @@ function answer(run: () => ParsedSheet): void {
   } catch (error) {
     if (!(error instanceof ValidationError)) throw error;
     expect(error.message.startsWith('invalid ')).toBe(true);
+    expect(error.message).not.toMatch(/[\n\r]/); // one stderr line
     expect(error.field.length).toBeGreaterThan(0);
     expect(error.message).not.toMatch(/\n\s+at /);
     expect(error.message.length).toBeLessThan(600);
