@@ -33,12 +33,14 @@ const SAME_ETA = 1e-9;
 export function rankByBandEnergy(
   patterns: readonly { name: string; pattern: Pattern }[],
   params: ParameterSet,
-  options: Omit<FillOptions, 'onProgress'> = {},
+  options: Omit<FillOptions, 'onProgress'> & { onProgress?: (patternsDone: number, total: number) => void } = {},
 ): RankingResult {
+  const { onProgress, ...fillOptions } = options;
   const groups: { holeDensity: number; patterns: RankedPattern[] }[] = [];
-  for (const { name, pattern } of patterns) {
+  for (const [done, { name, pattern }] of patterns.entries()) {
     const eta = holeDensity(pattern);
-    const result = fill(new TightBindingModel(patternToSheet(pattern), params), options);
+    const result = fill(new TightBindingModel(patternToSheet(pattern), params), fillOptions);
+    onProgress?.(done + 1, patterns.length);
     let group = groups.find((g) => Math.abs(g.holeDensity - eta) < SAME_ETA);
     if (!group) {
       group = { holeDensity: eta, patterns: [] };

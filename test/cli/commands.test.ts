@@ -211,3 +211,39 @@ describe('lacuna geometry', () => {
     expect(document.coordination).toEqual({ '4': 2, '5': 2 });
   });
 });
+
+describe('lacuna enumerate --jsonl and --shard', () => {
+  it('shard outputs concatenate (cat) to the whole list, as a set', async () => {
+    const whole = (await cli(['enumerate', '--sites', '1-10', '--holes', '1-3', '--isolated', '--jsonl'])).stdout;
+    let parts = '';
+    for (let i = 1; i <= 4; i++) parts += (await cli(['enumerate', '--sites', '1-10', '--holes', '1-3', '--isolated', '--shard', `${i}/4`, '--jsonl'])).stdout;
+    const lines = (text: string) => text.trimEnd().split('\n').sort();
+    expect(lines(parts)).toEqual(lines(whole));
+    for (const line of lines(whole)) expect(JSON.parse(line).holes).toBeGreaterThan(0);
+  });
+
+  it('--eta keeps only the count rows whose k/N lies in the range', async () => {
+    const document = JSON.parse((await cli(['enumerate', '--sites', '1-9', '--holes', '1-2', '--eta', '0.15-0.2', '--counts-only', '--json'])).stdout);
+    for (const row of document.counts) {
+      expect(row.holes / row.sites).toBeGreaterThanOrEqual(0.15 - 1e-12);
+      expect(row.holes / row.sites).toBeLessThanOrEqual(0.2 + 1e-12);
+    }
+  });
+});
+
+describe('the README examples on the shipped demo files', () => {
+  it('fill with the demo sheet and the demo parameter file works and names the set', async () => {
+    const { readFileSync } = await import('node:fs');
+    const files = {
+      'presets/demo/hsl-0427-sheet.json': readFileSync('presets/demo/hsl-0427-sheet.json', 'utf8'),
+      'presets/demo/hsl-fit-params.json': readFileSync('presets/demo/hsl-fit-params.json', 'utf8'),
+    };
+    const { code, stdout } = await cli(['fill', 'presets/demo/hsl-0427-sheet.json', '--params', 'presets/demo/hsl-fit-params.json', '--mesh', '8', '--json'], files);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    expect(document.parameters).toBe('demo-hsl-fit');
+    expect(document.electrons_per_atom).toBeCloseTo(3, 9); // neutral: 3 valence electrons per B (common practice)
+    expect(JSON.parse(files['presets/demo/hsl-fit-params.json']).source).toMatch(/^DEMO/);
+    expect(JSON.parse(files['presets/demo/hsl-0427-sheet.json']).name).toMatch(/^DEMO/);
+  });
+});

@@ -51,7 +51,7 @@ function run(argv: readonly string[], io: CliIo): number {
     })}\n`);
     return 0;
   }
-  io.out(`${sheet.label}: DOS by the ${dos.method} method on a ${spectrum.mesh}×${spectrum.mesh} mesh, ${grid.length} energies from ${grid[0].toFixed(2)} to ${grid[grid.length - 1].toFixed(2)} eV; neutral E_F ${fermi.toFixed(3)} eV\n`);
+  io.out(`${sheet.label}: parameters ${dos.parameters}, DOS by the ${dos.method} method on a ${spectrum.mesh}×${spectrum.mesh} mesh, ${grid.length} energies from ${grid[0].toFixed(2)} to ${grid[grid.length - 1].toFixed(2)} eV; neutral E_F ${fermi.toFixed(3)} eV\n`);
   if (flags.csv !== undefined) io.out(`wrote ${flags.csv}\n`);
   io.out(`${MODEL_CAVEAT}\n`);
   return 0;

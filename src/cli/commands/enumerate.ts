@@ -16,7 +16,7 @@ export const MAX_SITES = 64;
 
 const spec: CommandSpec = {
   name: 'enumerate',
-  summary: 'list every vacancy pattern up to symmetry, by sites per cell and holes per cell',
+  summary: 'list every vacancy pattern up to symmetry, by sites per cell and holes per cell (a cell with every site vacant has no atoms and is not listed)',
   positionals: [],
   flags: {
     sites: { kind: 'integerRange', min: 1, max: MAX_SITES, placeholder: 'N1-N2', help: `lattice sites per cell (1–${MAX_SITES}); required` },
@@ -29,6 +29,7 @@ const spec: CommandSpec = {
     'cell-tolerance': { kind: 'numberList', min: 0, max: 180, length: 2, placeholder: 'Å,°', help: 'how far lengths and angle may differ for --cell (default 0.15,3)' },
     bond: { kind: 'number', min: 0, max: 10, exclusiveMin: true, placeholder: 'Å', help: 'B–B distance for the Cartesian cell and atoms (default 1.69)' },
     'counts-only': { kind: 'switch', help: 'count without listing (memory stays flat)' },
+    jsonl: { kind: 'switch', help: 'one JSON object per structure per line and nothing else (shard outputs concatenate with cat)' },
     json: JSON_FLAG,
   },
 };
@@ -116,11 +117,18 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   if (flags['max-elongation'] !== undefined) options.maxElongation = flags['max-elongation'] as number;
   if (flags.shard) options.shard = flags.shard as { index: number; count: number };
   const json = flags.json === true;
+  const jsonl = flags.jsonl === true;
+  if (json && jsonl) invalid('--jsonl', '--jsonl', 'give --json or --jsonl, not both');
+  if (jsonl && flags['counts-only']) invalid('--jsonl', '--jsonl', 'lists structures; with --counts-only use --json');
+  // Count rows: one per (N, k) with at least one atom left and, with --eta, only the η inside the range.
+  const eta = flags.eta as [number, number] | undefined;
+  const wantedRow = (row: { sites: number; holes: number }) =>
+    row.holes < row.sites && (!eta || (row.holes / row.sites >= eta[0] - 1e-12 && row.holes / row.sites <= eta[1] + 1e-12));
   if (flags['cell-tolerance'] !== undefined && flags.cell === undefined) invalid('--cell-tolerance', flags['cell-tolerance'], 'only with --cell');
   const fits = cellFilter(flags.cell as number[] | undefined, flags['cell-tolerance'] as number[] | undefined);
 
   if (flags['counts-only'] && !fits) {
-    const counts = countStructures(options).filter((row) => row.holes < row.sites);
+    const counts = countStructures(options).filter(wantedRow);
     progress.done();
     io.out(json ? `${JSON.stringify({ counts, structures: [], counts_only: true })}\n` : `${countTable(counts)}\n`);
     return 0;
@@ -140,7 +148,9 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     const key = `${structure.sites}/${structure.holes}`;
     tally.set(key, (tally.get(key) ?? 0) + 1);
     if (!list) continue;
-    if (json) {
+    if (jsonl) {
+      io.out(`${JSON.stringify(structureJson(structure, bond))}\n`);
+    } else if (json) {
       io.out(`${first ? '\n' : ',\n'}${JSON.stringify(structureJson(structure, bond))}`);
     } else {
       const phase = structure.phase ? `  = ${structure.phase}` : '';
@@ -154,9 +164,10 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const counts: CountRow[] = [];
   for (let sites = n1; sites <= n2; sites++) {
     for (let holes = k1; holes <= Math.min(k2, sites - 1); holes++) {
-      counts.push({ sites, holes, structures: tally.get(`${sites}/${holes}`) ?? 0 });
+      if (wantedRow({ sites, holes })) counts.push({ sites, holes, structures: tally.get(`${sites}/${holes}`) ?? 0 });
     }
   }
+  if (jsonl) return 0;
   if (json && list) io.out(`\n],"counts":${JSON.stringify(counts)}}\n`);
   else if (json) io.out(`${JSON.stringify({ counts, structures: [], counts_only: true })}\n`);
   else io.out(`${list ? '\n' : ''}${countTable(counts)}\n`);

@@ -54,7 +54,7 @@ function run(argv: readonly string[], io: CliIo): number {
   const coordination = Object.entries(document.coordination as Record<string, number>).map(([c, n]) => `${n} × ${c}-fold`).join(', ');
   const lines = [
     `${label}: ${sheet.atoms.length} atoms per cell${phase ? ` (the ${phase} sheet)` : ''}`,
-    `  hole density η   ${eta.toFixed(4)}${pattern ? '' : '  (estimated from the areal density: not on a triangular lattice)'}`,
+    `  hole density η   ${eta.toFixed(4)}${pattern ? '' : '  (estimated from the areal density: not recognised as a flat triangular-lattice pattern)'}`,
     `  reduced cell     ${cell.a.toFixed(3)} × ${cell.b.toFixed(3)} Å, γ = ${cell.gammaDeg.toFixed(2)}°`,
     `  coordination     ${coordination || 'none (no neighbours within 1.2 × the shortest distance)'}`,
   ];

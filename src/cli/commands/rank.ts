@@ -9,6 +9,7 @@ import { parseArgs, type CommandSpec } from '../args.ts';
 import { DOPING_FLAG, JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SMEARING_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
 import { resolveParameters } from '../parameters.ts';
+import { ProgressLine } from '../progress.ts';
 import { estimatedSeconds, MAX_ESTIMATED_SECONDS } from '../workEstimate.ts';
 
 /** Most patterns one ranking solves: each needs a full mesh, about 0.1 s for an 8-atom cell at M = 36. */
@@ -48,11 +49,14 @@ function run(argv: readonly string[], io: CliIo): number {
   const mesh = (flags.mesh as number | undefined) ?? DEFAULT_MESH;
   const seconds = patterns.reduce((sum, p) => sum + estimatedSeconds(patternToSheet(p.pattern), mesh * mesh), 0);
   if (seconds > MAX_ESTIMATED_SECONDS) invalid('--mesh', mesh, `about ${(seconds / 3600).toFixed(1)} h for ${patterns.length} patterns; use a smaller mesh or narrow --sites, --holes or --eta`);
+  const progress = new ProgressLine(io.err, 'patterns');
   const ranking = rankByBandEnergy(patterns, params, {
     doping: flags.doping as number | undefined,
     mesh: flags.mesh as number | undefined,
     smearing: flags.smearing as number | undefined,
+    onProgress: (done, total) => progress.update(done, done / total),
   });
+  progress.done();
   if (flags.json) {
     io.out(`${JSON.stringify({
       parameters: ranking.parameters,
