@@ -14,11 +14,12 @@ import { fillCommand } from './commands/fill.ts';
 import { geometryCommand } from './commands/geometry.ts';
 import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
+import { scanCommand } from './commands/scan.ts';
 import type { CliIo, Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
-  enumerateCommand, geometryCommand, bandsCommand, fillCommand, dosCommand, bondingCommand, rankCommand, exportCommand, presetsCommand,
-  benchCommand,
+  enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
+  presetsCommand, benchCommand,
 ];
 
 function overview(): string {

@@ -247,3 +247,23 @@ describe('the README examples on the shipped demo files', () => {
     expect(JSON.parse(files['presets/demo/hsl-0427-sheet.json']).name).toMatch(/^DEMO/);
   });
 });
+
+describe('lacuna scan', () => {
+  it('moves E_F with doping; the honeycomb at δ = 1 (the MgB2 count) sits at the Dirac point εp', async () => {
+    const { code, stdout } = await cli(['scan', 'honeycomb', '--dopings', '0,1,0.25', '--mesh', '24', '--json']);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    expect(document.rows.map((r: { doping: number }) => r.doping)).toEqual([0, 0.25, 0.5, 0.75, 1]);
+    for (let i = 1; i < document.rows.length; i++) expect(document.rows[i].fermi).toBeGreaterThan(document.rows[i - 1].fermi);
+    // Nearest-neighbour honeycomb π band: ε ± t|1 + e^{ik·a1} + e^{ik·a2}|, zero gap at K at ε = εp (Wallace, Phys. Rev. 71, 622 (1947));
+    // harrison1980 εp = −6.64 eV. The mesh (24, a multiple of 3) contains K, and the σ bonding bands lie below.
+    expect(document.rows[4].fermi).toBeCloseTo(-6.64, 6);
+    expect(document.rows[4].pi_electrons_per_atom).toBeCloseTo(1, 6);
+  });
+
+  it('refuses an empty or outside range', async () => {
+    await refused(['scan', 'alpha', '--dopings', '1,0,0.1'], /^invalid --dopings: "1,0,0.1" \(δ2 must not be below δ1\)/);
+    await refused(['scan', 'alpha', '--dopings', '0,1,0'], /^invalid --dopings: "0,1,0" \(the step must be positive\)/);
+    await refused(['scan', 'alpha', '--dopings', '-3,1,0.5'], /^invalid --dopings: "-3,1,0.5" \(every δ must lie strictly between/);
+  });
+});
