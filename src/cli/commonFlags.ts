@@ -25,6 +25,8 @@ export const DOPING_FLAG: FlagSpec = {
   help: 'extra electrons per atom, positive when given by the substrate (default 0; strictly between −3 and 5)',
 };
 
+export const OVERWRITE_FLAG: FlagSpec = { kind: 'switch', help: 'replace the output file if it exists' };
+
 export const JSON_FLAG: FlagSpec = { kind: 'switch', help: 'one JSON document on stdout' };
 
 /** The caveat printed under every human-readable model result. */

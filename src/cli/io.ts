@@ -14,6 +14,8 @@ export interface CliIo {
   readText(path: string): string;
   /** Writes a file, creating or replacing it. */
   writeFile(path: string, data: string | Uint8Array): void;
+  /** True when something exists at path. */
+  exists(path: string): boolean;
 }
 
 /** A command: parses its own flags from argv and returns the exit code. */
@@ -29,5 +31,15 @@ export function writeNamedFile(io: CliIo, field: string, path: string, data: str
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
     throw new ValidationError(field, JSON.stringify(path), `cannot write the file${code ? `: ${code}` : ''}`);
+  }
+}
+
+/**
+ * Refuses, before any work is done, to replace an existing file unless the user said --overwrite: a results file
+ * the user made is never lost to a repeated command.
+ */
+export function checkOutputPath(io: CliIo, field: string, path: string | undefined, overwrite: boolean): void {
+  if (path !== undefined && !overwrite && io.exists(path)) {
+    throw new ValidationError(field, JSON.stringify(path), 'the file exists; add --overwrite to replace it');
   }
 }

@@ -1,7 +1,7 @@
 /**
  * Process entry of the CLI (`npm run -s lacuna -- <command>`): wires the real stdout, stderr and file system.
  */
-import { readFileSync, writeFileSync, writeSync } from 'node:fs';
+import { existsSync, readFileSync, writeFileSync, writeSync } from 'node:fs';
 import { runCli } from './run.ts';
 
 const chunks: string[] = [];
@@ -47,6 +47,7 @@ const code = await runCli(
     err: { isTTY: process.stderr.isTTY === true, write: (text) => process.stderr.write(text) },
     readText: (path) => (path === '-' ? readFileSync(0, 'utf8') : readFileSync(path, 'utf8')),
     writeFile: (path, data) => writeFileSync(path, data),
+    exists: (path) => existsSync(path),
   },
   Boolean(process.env.LACUNA_DEBUG),
 );

@@ -267,3 +267,13 @@ describe('lacuna scan', () => {
     await refused(['scan', 'alpha', '--dopings', '-3,1,0.5'], /^invalid --dopings: "-3,1,0.5" \(every δ must lie strictly between/);
   });
 });
+
+describe('output files', () => {
+  it('are never replaced without --overwrite, and the refusal comes before any work', async () => {
+    await refused(['export', 'alpha', '--format', 'cif', '--out', 'mine.cif'], /^invalid --out: "mine.cif" \(the file exists; add --overwrite to replace it\)/, { 'mine.cif': 'my notes' });
+    await refused(['bands', 'alpha', '--path', 'auto', '--csv', 'mine.csv'], /^invalid --csv: "mine.csv" \(the file exists/, { 'mine.csv': 'my data' });
+    const replaced = await cli(['export', 'alpha', '--format', 'cif', '--out', 'mine.cif', '--overwrite'], { 'mine.cif': 'my notes' });
+    expect(replaced.code).toBe(0);
+    expect(String(replaced.files.get('mine.cif'))).toContain('_cell_length_a');
+  });
+});

@@ -19,6 +19,7 @@ export function fakeIo(files: Record<string, string> = {}): CliIo & { stdout: ()
       if (path.startsWith('/readonly/')) throw Object.assign(new Error('EACCES'), { code: 'EACCES' });
       store.set(path, data);
     },
+    exists: (path) => store.has(path),
     stdout: () => out,
     stderr: () => err,
     files: store,

@@ -5,8 +5,8 @@ import { invalid, ValidationError } from '../../io/invalid.ts';
 import { parseKpointsText } from '../../io/kpointsFile.ts';
 import { autoPath, computeBands, type BandResult, type KPath } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
-import { writeNamedFile, type Command, type CliIo } from '../io.ts';
-import { JSON_FLAG, PARAMS_FLAG, SHEET_ARGUMENT } from '../commonFlags.ts';
+import { checkOutputPath, writeNamedFile, type Command, type CliIo } from '../io.ts';
+import { JSON_FLAG, OVERWRITE_FLAG, PARAMS_FLAG, SHEET_ARGUMENT } from '../commonFlags.ts';
 import { buildModel, resolveParameters } from '../parameters.ts';
 import { resolveSheet } from '../sheetArgument.ts';
 import { ProgressLine } from '../progress.ts';
@@ -21,6 +21,7 @@ const spec: CommandSpec = {
     path: { kind: 'choice', values: ['auto'], placeholder: 'auto', help: 'the automatic path through the special points of the reduced cell' },
     points: { kind: 'integer', min: 2, max: 100_000, placeholder: 'P', help: 'points on the automatic path (default 300)' },
     csv: { kind: 'text', placeholder: 'FILE', help: 'also write the bands as CSV' },
+    overwrite: OVERWRITE_FLAG,
     json: JSON_FLAG,
   },
 };
@@ -49,6 +50,7 @@ export function bandsCsv(kpoints: Float64Array, result: BandResult, path?: KPath
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
+  checkOutputPath(io, '--csv', flags.csv as string | undefined, flags.overwrite === true);
   if (flags.kpoints !== undefined && flags.path !== undefined) invalid('--kpoints', flags.kpoints, 'give either --kpoints or --path auto, not both');
   if (flags.kpoints === undefined && flags.path === undefined) invalid('--path', undefined, 'give --path auto or --kpoints FILE');
   if (flags.points !== undefined && flags.path === undefined) invalid('--points', flags.points, 'only with --path auto');

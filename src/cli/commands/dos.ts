@@ -3,8 +3,8 @@
  */
 import { energyGrid, fillSpectrum, gaussianDos, triangleDos, type DosResult } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
-import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
-import { writeNamedFile, type Command, type CliIo } from '../io.ts';
+import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, OVERWRITE_FLAG, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
+import { checkOutputPath, writeNamedFile, type Command, type CliIo } from '../io.ts';
 import { resolveSpectrum } from '../parameters.ts';
 
 const spec: CommandSpec = {
@@ -18,6 +18,7 @@ const spec: CommandSpec = {
     smearing: SMEARING_FLAG,
     points: { kind: 'integer', min: 2, max: 200_000, placeholder: 'P', help: 'energies on the grid (default 2001)' },
     csv: { kind: 'text', placeholder: 'FILE', help: 'also write the DOS as CSV' },
+    overwrite: OVERWRITE_FLAG,
     json: JSON_FLAG,
   },
 };
@@ -30,6 +31,7 @@ function dosCsv(dos: DosResult): string {
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
+  checkOutputPath(io, '--csv', flags.csv as string | undefined, flags.overwrite === true);
   const { sheet, spectrum, smearing } = resolveSpectrum(positionals.SHEET, flags, io);
   const grid = energyGrid(spectrum, { points: (flags.points as number | undefined) ?? 2001 });
   const dos = flags.method === 'triangle' ? triangleDos(spectrum, grid) : gaussianDos(spectrum, grid, smearing);

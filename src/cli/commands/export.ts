@@ -5,8 +5,8 @@ import { sheetToCif } from '../../io/cif.ts';
 import { sheetToJson } from '../../io/sheetJson.ts';
 import { sheetToXyz } from '../../io/xyz.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
-import { SHEET_ARGUMENT } from '../commonFlags.ts';
-import { writeNamedFile, type Command, type CliIo } from '../io.ts';
+import { OVERWRITE_FLAG, SHEET_ARGUMENT } from '../commonFlags.ts';
+import { checkOutputPath, writeNamedFile, type Command, type CliIo } from '../io.ts';
 import { resolveSheet } from '../sheetArgument.ts';
 
 const spec: CommandSpec = {
@@ -16,11 +16,13 @@ const spec: CommandSpec = {
   flags: {
     format: { kind: 'choice', values: ['cif', 'xyz', 'json'], placeholder: 'cif|xyz|json', help: 'output format (default json)' },
     out: { kind: 'text', placeholder: 'FILE', help: 'write to FILE instead of stdout' },
+    overwrite: OVERWRITE_FLAG,
   },
 };
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
+  checkOutputPath(io, '--out', flags.out as string | undefined, flags.overwrite === true);
   const { sheet, label } = resolveSheet(positionals.SHEET, io);
   // An unnamed sheet from a file takes the file's base name (not its path) as the data name.
   const fallback = label.replace(/^.*[\\/]/, '').replace(/\.json$/i, '') || 'sheet';
