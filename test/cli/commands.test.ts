@@ -168,10 +168,13 @@ describe('lacuna enumerate: limits', () => {
     await refused(['enumerate', '--sites', '1-64', '--holes', '0-64', '--counts-only'], /^invalid --sites: "1-64" \(about [\d.]+e\+\d+ structures with these --holes; narrow the ranges/);
   });
 
-  it('lists no sheet without atoms (a cell with every site vacant)', async () => {
+  it('counts the empty labeling at N = 1, k = 1 (one-hole counts = OEIS A003051, a(1) = 1) and marks it empty', async () => {
     const document = JSON.parse((await cli(['enumerate', '--sites', '1-3', '--holes', '0-3', '--json'])).stdout);
-    for (const s of document.structures) expect(s.atoms.length).toBeGreaterThan(0);
-    for (const row of document.counts) expect(row.holes).toBeLessThan(row.sites);
+    expect(document.counts).toContainEqual({ sites: 1, holes: 1, structures: 1 });
+    expect(document.counts).toContainEqual({ sites: 3, holes: 3, structures: 0 });
+    const empty = document.structures.filter((s: { atoms: unknown[] }) => s.atoms.length === 0);
+    expect(empty).toHaveLength(1);
+    expect(empty[0]).toMatchObject({ sites: 1, holes: 1, empty: true });
   });
 });
 

@@ -16,7 +16,7 @@ export const MAX_SITES = 64;
 
 const spec: CommandSpec = {
   name: 'enumerate',
-  summary: 'list every vacancy pattern up to symmetry, by sites per cell and holes per cell (a cell with every site vacant has no atoms and is not listed)',
+  summary: 'list every vacancy pattern up to symmetry, by sites per cell and holes per cell (N = 1, k = 1 is the empty labeling: no atoms, marked "empty")',
   positionals: [],
   flags: {
     sites: { kind: 'integerRange', min: 1, max: MAX_SITES, placeholder: 'N1-N2', help: `lattice sites per cell (1–${MAX_SITES}); required` },
@@ -45,6 +45,7 @@ function structureJson(structure: Structure, bond: number): Record<string, unkno
     cell: sheet.cell,
     atoms: sheet.atoms,
   };
+  if (sheet.atoms.length === 0) entry.empty = true; // every site vacant: a labeling, not a sheet to solve
   const lattice = reducedPeriodicity(sheet.cell);
   entry.lattice = { a: lattice.a, b: lattice.b, gamma_deg: lattice.gammaDeg };
   if (structure.phase !== undefined) entry.phase = structure.phase;
@@ -120,10 +121,10 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const jsonl = flags.jsonl === true;
   if (json && jsonl) invalid('--jsonl', '--jsonl', 'give --json or --jsonl, not both');
   if (jsonl && flags['counts-only']) invalid('--jsonl', '--jsonl', 'lists structures; with --counts-only use --json');
-  // Count rows: one per (N, k) with at least one atom left and, with --eta, only the η inside the range.
+  // Count rows: one per (N, k) in range, zeros included; with --eta only the η inside the range.
   const eta = flags.eta as [number, number] | undefined;
   const wantedRow = (row: { sites: number; holes: number }) =>
-    row.holes < row.sites && (!eta || (row.holes / row.sites >= eta[0] - 1e-12 && row.holes / row.sites <= eta[1] + 1e-12));
+    !eta || (row.holes / row.sites >= eta[0] - 1e-12 && row.holes / row.sites <= eta[1] + 1e-12);
   if (flags['cell-tolerance'] !== undefined && flags.cell === undefined) invalid('--cell-tolerance', flags['cell-tolerance'], 'only with --cell');
   const fits = cellFilter(flags.cell as number[] | undefined, flags['cell-tolerance'] as number[] | undefined);
 
@@ -142,8 +143,6 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   if (json && list) io.out('{"structures":[');
   let first = true;
   for (const structure of enumerateStructures(options)) {
-    // Every site vacant (only at N = 1): a labeling, but no sheet — nothing to list or read back.
-    if (structure.holes === structure.sites) continue;
     if (fits && !fits(structure, bond)) continue;
     const key = `${structure.sites}/${structure.holes}`;
     tally.set(key, (tally.get(key) ?? 0) + 1);
@@ -163,7 +162,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   progress.done();
   const counts: CountRow[] = [];
   for (let sites = n1; sites <= n2; sites++) {
-    for (let holes = k1; holes <= Math.min(k2, sites - 1); holes++) {
+    for (let holes = k1; holes <= Math.min(k2, sites); holes++) {
       if (wantedRow({ sites, holes })) counts.push({ sites, holes, structures: tally.get(`${sites}/${holes}`) ?? 0 });
     }
   }
