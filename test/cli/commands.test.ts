@@ -82,6 +82,19 @@ describe('lacuna bands / fill / export', () => {
     expect(document.sigma_electrons_per_atom + document.pi_electrons_per_atom).toBeCloseTo(3, 9);
   });
 
+  it('export --own-cell keeps the sheet\'s own cell; the default is the reduced cell (β12: √3d × 3d, Feng et al. 2016)', async () => {
+    const own = (await cli(['export', 'beta12', '--format', 'cif', '--own-cell'])).stdout;
+    const reduced = (await cli(['export', 'beta12', '--format', 'cif'])).stdout;
+    const length = (cif: string, axis: string) => Number(new RegExp(`_cell_length_${axis}\\s+([\\d.]+)`).exec(cif)![1]);
+    // Own HNF cell rows (3, 0), (2, 2): |A1| = 3d, |A2| = |2a1 + 2a2| = 2√3·d, with d = 1.69 Å.
+    expect(length(own, 'a')).toBeCloseTo(3 * 1.69, 5);
+    expect(length(own, 'b')).toBeCloseTo(2 * Math.sqrt(3) * 1.69, 5);
+    // Reduced (right-handed, so a and b may come in either order): the rectangle √3d × 3d.
+    const sides = [length(reduced, 'a'), length(reduced, 'b')].sort((x, y) => x - y);
+    expect(sides[0]).toBeCloseTo(Math.sqrt(3) * 1.69, 5);
+    expect(sides[1]).toBeCloseTo(3 * 1.69, 5);
+  });
+
   it('export writes a CIF with the IUCr core names', async () => {
     const { code, stdout } = await cli(['export', 'honeycomb', '--format', 'cif']);
     expect(code).toBe(0);
@@ -100,6 +113,7 @@ describe('lacuna bands / fill / export', () => {
     await refused(['bands', 'alpha', '--kpoints', 'k.json'], /^invalid kpoints\[0\]\[1\]: "x"/, { 'k.json': '{"kpoints": [[0, "x"]]}' });
     await refused(['bands', 'alpha', '--path', 'auto', '--csv', '/readonly/x.csv'], /^invalid --csv: "\/readonly\/x.csv" \(cannot write the file: EACCES\)/);
     await refused(['export', 'alpha', '--format', 'pdb'], /^invalid --format: "pdb" \(must be one of cif, xyz, json\)/);
+    await refused(['export', 'alpha', '--format', 'cif', '--vacuum', '0.1'], /^invalid --vacuum: 0.1 \(must be finite and at least the sheet's thickness/);
   });
 });
 
