@@ -3,14 +3,28 @@
  * memory flat (one supercell's tables at a time).
  */
 import { ProgressMeter } from './meter.ts';
-import { branchWeights, planWeight, planWork, settingsOf, wantedList } from './plan.ts';
+import { branchWeights, planWeight, planWork, settingsOf, wantedHoles, wantedList } from './plan.ts';
 import { buildQuotient } from './quotient.ts';
 import { LabelingSearch } from './search.ts';
 import type { CountRow, EnumerateOptions } from './types.ts';
 
 /**
- * One row per (N, k) with N1 ≤ N ≤ N2 and K1 ≤ k ≤ min(K2, N), ordered by N then k, zeros included (also for
- * k outside the hole-density range). With a shard, the shard's counts; the shards' rows add up to the whole.
+ * The (N, k) rows a count reports: N1 ≤ N ≤ N2, K1 ≤ k ≤ min(K2, N) and, with a hole-density range, k/N inside
+ * it; ordered by N then k. Listing and counting drivers (and the CLI) tally into these same rows.
+ */
+export function countRowKeys(options: EnumerateOptions): { sites: number; holes: number }[] {
+  const settings = settingsOf(options);
+  const keys: { sites: number; holes: number }[] = [];
+  for (let n = settings.sites[0]; n <= settings.sites[1]; n++) {
+    const wanted = wantedHoles(settings, n);
+    for (let k = 0; k <= n; k++) if (wanted[k]) keys.push({ sites: n, holes: k });
+  }
+  return keys;
+}
+
+/**
+ * One row per key of countRowKeys, zeros included. With a shard, the shard's counts; the shards' rows add up to
+ * the whole.
  */
 export function countStructures(options: EnumerateOptions): CountRow[] {
   const settings = settingsOf(options);
@@ -47,9 +61,8 @@ export function countStructures(options: EnumerateOptions): CountRow[] {
         meter.complete(search.examined, prefix[n]);
       }
     }
-    for (let k = settings.holes[0]; k <= Math.min(settings.holes[1], n); k++) {
-      rows.push({ sites: n, holes: k, structures: counts[k] });
-    }
+    const wanted = wantedHoles(settings, n);
+    for (let k = 0; k <= n; k++) if (wanted[k]) rows.push({ sites: n, holes: k, structures: counts[k] });
   }
   meter.end();
   return rows;

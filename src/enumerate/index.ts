@@ -1,5 +1,5 @@
 export { canonicalForm, formatCanonical } from './canonical.ts';
-export { countStructures } from './count.ts';
+export { countRowKeys, countStructures } from './count.ts';
 export { enumerateStructures } from './enumerate.ts';
 export { latticeOfVectors, periodLattice, primitivePattern } from './period.ts';
 export { presetPhase } from './phase.ts';

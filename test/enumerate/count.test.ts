@@ -47,6 +47,16 @@ describe('countStructures(options)', () => {
     }
   });
 
+  it('reports rows only for k/N inside a hole-density range (η = vacancies / sites, DESIGN.md conventions)', () => {
+    const rows = countStructures({ sites: [1, 12], holes: [0, 12], holeDensity: [0.15, 0.2] });
+    expect(rows.length).toBeGreaterThan(0);
+    for (const r of rows) {
+      expect(r.holes / r.sites).toBeGreaterThanOrEqual(0.15 - 1e-12);
+      expect(r.holes / r.sites).toBeLessThanOrEqual(0.2 + 1e-12);
+    }
+    expect(rows).toContainEqual({ sites: 6, holes: 1, structures: 3 }); // one hole in 6 sites: A003051(6) = 3
+  });
+
   it('reports progress ending at fraction 1 with the total found', () => {
     let last = { examined: 0, found: 0, fraction: 0 };
     const rows = countStructures({ sites: [1, 24], holes: [0, 5], isolated: true, onProgress: (p) => (last = { ...p }) });

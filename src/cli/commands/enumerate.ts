@@ -2,7 +2,7 @@
  * `lacuna enumerate`: every vacancy pattern of the triangular lattice in a range of cell sizes and hole counts,
  * each once up to the 12 operations of 6mm and translations, at its smallest cell (DESIGN.md contract).
  */
-import { countStructures, enumerateStructures, type CountRow, type EnumerateOptions, type Structure } from '../../enumerate/index.ts';
+import { countRowKeys, countStructures, enumerateStructures, type CountRow, type EnumerateOptions, type Structure } from '../../enumerate/index.ts';
 import { invalid } from '../../io/invalid.ts';
 import { hnfRows, patternCell, patternToSheet } from '../../lattice/pattern.ts';
 import { periodicityMismatch, periodicityOf, reducedPeriodicity } from '../../lattice/periodicity.ts';
@@ -121,15 +121,11 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const jsonl = flags.jsonl === true;
   if (json && jsonl) invalid('--jsonl', '--jsonl', 'give --json or --jsonl, not both');
   if (jsonl && flags['counts-only']) invalid('--jsonl', '--jsonl', 'lists structures; with --counts-only use --json');
-  // Count rows: one per (N, k) in range, zeros included; with --eta only the η inside the range.
-  const eta = flags.eta as [number, number] | undefined;
-  const wantedRow = (row: { sites: number; holes: number }) =>
-    !eta || (row.holes / row.sites >= eta[0] - 1e-12 && row.holes / row.sites <= eta[1] + 1e-12);
   if (flags['cell-tolerance'] !== undefined && flags.cell === undefined) invalid('--cell-tolerance', flags['cell-tolerance'], 'only with --cell');
   const fits = cellFilter(flags.cell as number[] | undefined, flags['cell-tolerance'] as number[] | undefined);
 
   if (flags['counts-only'] && !fits) {
-    const counts = countStructures(options).filter(wantedRow);
+    const counts = countStructures(options);
     progress.done();
     io.out(json ? `${JSON.stringify({ counts, structures: [], counts_only: true })}\n` : `${countTable(counts)}\n`);
     return 0;
@@ -137,8 +133,6 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
 
   // Stream the structures (memory flat in their number), tallying counts as they pass.
   const tally = new Map<string, number>();
-  const [n1, n2] = options.sites;
-  const [k1, k2] = options.holes;
   const list = !flags['counts-only'];
   if (json && list) io.out('{"structures":[');
   let first = true;
@@ -160,12 +154,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     first = false;
   }
   progress.done();
-  const counts: CountRow[] = [];
-  for (let sites = n1; sites <= n2; sites++) {
-    for (let holes = k1; holes <= Math.min(k2, sites); holes++) {
-      if (wantedRow({ sites, holes })) counts.push({ sites, holes, structures: tally.get(`${sites}/${holes}`) ?? 0 });
-    }
-  }
+  const counts: CountRow[] = countRowKeys(options).map(({ sites, holes }) => ({ sites, holes, structures: tally.get(`${sites}/${holes}`) ?? 0 }));
   if (jsonl) return 0;
   if (json && list) io.out(`\n],"counts":${JSON.stringify(counts)}}\n`);
   else if (json) io.out(`${JSON.stringify({ counts, structures: [], counts_only: true })}\n`);
