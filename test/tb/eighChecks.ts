@@ -108,10 +108,20 @@ export function embeddingEigenvalues({ n, re, im }: ComplexMatrix): number[] {
  */
 export function shiftedEmbeddingEigenvalues(h: ComplexMatrix): number[] {
   const { n } = h;
-  const shift = 2 * frobenius(h);
-  const re = h.re.slice();
+  // A matrix whose norm is itself tiny (every entry ~1e-300) is first scaled by an exact power of two to norm ~1:
+  // ml-matrix works in plain floating point, and squares of 1e-300 underflow there (seen: errors of 1e-9 relative
+  // on a 2×2 of 1e-300 entries). Scaling by 2^k changes no digit of a normal number and of the spectrum.
+  const norm = frobenius(h);
+  const exponent = norm > 0 && norm < 2 ** -200 ? -Math.floor(Math.log2(norm)) : 0;
+  // 2^exponent can pass 2^1023 (a subnormal norm needs up to 2^1074): apply it in two exact halves.
+  const half = Math.floor(exponent / 2);
+  const up = (x: number) => x * 2 ** half * 2 ** (exponent - half);
+  const down = (x: number) => x * 2 ** -half * 2 ** (half - exponent);
+  const re = h.re.map(up);
+  const im = h.im.map(up);
+  const shift = 2 * frobenius({ n, re, im });
   for (let i = 0; i < n; i++) re[i * n + i] += shift;
-  return embeddingEigenvalues({ n, re, im: h.im }).map((value) => value - shift);
+  return embeddingEigenvalues({ n, re, im }).map((value) => down(value - shift));
 }
 
 /**
