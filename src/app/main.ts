@@ -1,55 +1,118 @@
 /**
- * Placeholder page: the sheet presets from the core with the electron-counting rule, and the demo scenario's
- * candidate patterns (enumerated here, in the browser, from the demo's measured cell). The real view (sheet and
- * bands side by side) replaces this in the web-view issue.
+ * The page's entry: the starting view (the URL hash if there is one, else the embedded demo scenario), the
+ * controller, the panels, and the page-wide keys. Everything it shows is computed by the core (src/), in two
+ * workers: the model worker (bands, DOS, filling, states) and the search worker (enumeration, ranking).
  */
 import demo from '../../presets/demo/harbour-lab.json' with { type: 'json' };
-import { enumerateStructures } from '../enumerate/index.ts';
-import { holeDensity, patternCell, patternToSheet } from '../lattice/pattern.ts';
-import { periodicityMismatch, periodicityOf, reducedPeriodicity } from '../lattice/periodicity.ts';
-import { SHEET_PRESETS } from '../lattice/presets.ts';
-import { countingRuleDoping } from '../tb/countingRule.ts';
+import { App } from './app.ts';
+import { Notices } from './panels/notices.ts';
+import { wireControls, readNumber } from './panels/controls.ts';
+import { CandidatesPanel } from './panels/candidatesPanel.ts';
+import { wireExports } from './panels/exportsPanel.ts';
+import { defaultState, readHash, type ViewState } from './state.ts';
+import { ValidationError } from '../io/invalid.ts';
 
-function fillTable(selector: string, rows: string[][], numeric: (column: number) => boolean): void {
-  const body = document.querySelector(`${selector} tbody`)!;
-  for (const cells of rows) {
-    const row = document.createElement('tr');
-    cells.forEach((text, column) => {
-      const cell = document.createElement('td');
-      cell.textContent = text;
-      if (numeric(column)) cell.className = 'num';
-      row.append(cell);
-    });
-    body.append(row);
-  }
+const $ = <T extends Element>(selector: string) => document.querySelector<T>(selector)!;
+
+/** The demo scenario (invented, labelled DEMO): its sheet, and the candidate search for its measured cell. */
+function demoState(): ViewState {
+  const state = defaultState();
+  const measured = demo.measured_periodicity;
+  state.sheet = { kind: 'preset', name: demo.sheet };
+  state.search = {
+    sites: [1, 12],
+    holes: [1, 3],
+    isolated: true,
+    cell: { a: measured.a_angstrom, b: measured.b_angstrom, gamma: measured.gamma_deg, lengthTolerance: measured.uncertainty_angstrom, angleTolerance: 3 },
+  };
+  return state;
 }
 
-fillTable(
-  '#presets',
-  SHEET_PRESETS.map((preset) => {
-    const eta = holeDensity(preset.pattern);
-    return [preset.title, eta.toFixed(4), String(patternToSheet(preset.pattern).atoms.length), countingRuleDoping(eta).toFixed(3), preset.source];
-  }),
-  (column) => column > 0 && column < 4,
+const notices = new Notices($('#notices'));
+const opensDemo = location.hash.replace(/^#/, '') === '';
+let initial = demoState();
+if (!opensDemo) {
+  const { state, errors } = readHash(location.hash, defaultState());
+  initial = state;
+  for (const error of errors) notices.show(`${error.message} — that part of the link was ignored`);
+}
+
+const app = new App(
+  initial,
+  {
+    sheetHost: $('#sheet-host'),
+    bandsHost: $('#bands-host'),
+    dosHost: $('#dos-host'),
+    zoneHost: $('#zone-host'),
+    countBox: $('#count-box'),
+    summary: $('#summary'),
+    sheetReadout: $('#sheet-readout'),
+    stateReadout: $('#state-readout'),
+    progress: $('#model-progress'),
+  },
+  notices,
+  localStorage,
+  () => new Worker(new URL('./worker/modelWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-model' }),
 );
+wireControls(app, document);
+wireExports(app, document);
+const candidates = new CandidatesPanel(app, document, () => new Worker(new URL('./worker/searchWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-search' }));
 
-// The demo: which isolated-hole patterns of up to 12 sites fit the measured cell?
-const measured = demo.measured_periodicity;
-const target = periodicityOf(measured.a_angstrom, measured.b_angstrom, measured.gamma_deg);
-const candidates: string[][] = [];
-for (const structure of enumerateStructures({ sites: [1, 12], holes: [1, 3], isolated: true })) {
-  const cell = reducedPeriodicity(patternCell(structure.pattern));
-  const miss = periodicityMismatch(cell, target);
-  if (miss.length > measured.uncertainty_angstrom || miss.angleDeg > 3) continue;
-  candidates.push([
-    structure.phase ?? '—',
-    `${structure.sites} / ${structure.holes}`,
-    structure.eta.toFixed(4),
-    `${cell.a.toFixed(2)} × ${cell.b.toFixed(2)} Å, ${cell.gammaDeg.toFixed(1)}°`,
-    countingRuleDoping(structure.eta).toFixed(3),
-  ]);
+if (opensDemo) {
+  const note = $<HTMLElement>('#demo-note');
+  note.hidden = false;
+  note.textContent = `${demo.title}: ${demo.lab}, sample ${demo.sample} on Ag(111) — a measured ${demo.measured_periodicity.a_angstrom} × ${demo.measured_periodicity.b_angstrom} Å cell at ${demo.measured_periodicity.gamma_deg}°. ${demo.question}`;
 }
-document.querySelector('#demo-title')!.textContent = demo.title;
-document.querySelector('#demo-question')!.textContent = `${demo.lab}, sample ${demo.sample}: ${demo.question}`;
-fillTable('#candidates', candidates, (column) => column > 0);
-document.querySelector('#demo')!.textContent = JSON.stringify(demo, null, 2);
+
+// Page-wide controls.
+$<HTMLButtonElement>('#undo').addEventListener('click', () => app.undo());
+$<HTMLButtonElement>('#redo').addEventListener('click', () => app.redo());
+$<HTMLButtonElement>('#reset-view').addEventListener('click', () => app.sheetView.fit());
+$<HTMLButtonElement>('#model-cancel').addEventListener('click', () => {
+  app.model.cancel();
+  $<HTMLElement>('#model-progress').hidden = true;
+  notices.show('stopped: the figures show the last finished computation', 'info');
+});
+const guide = $<HTMLButtonElement>('#guide-toggle');
+guide.addEventListener('click', () => {
+  const on = guide.getAttribute('aria-pressed') !== 'true';
+  guide.setAttribute('aria-pressed', String(on));
+  for (const box of document.querySelectorAll<HTMLElement>('.explain')) box.hidden = !on;
+});
+for (const id of ['#energy-low', '#energy-high']) {
+  $<HTMLInputElement>(id).addEventListener('change', () => {
+    const low = $<HTMLInputElement>('#energy-low');
+    const high = $<HTMLInputElement>('#energy-high');
+    try {
+      const lo = low.value.trim() === '' ? undefined : readNumber(low, 'lowest energy shown', -1000, 1000);
+      const hi = high.value.trim() === '' ? undefined : readNumber(high, 'highest energy shown', -1000, 1000);
+      if (lo !== undefined && hi !== undefined && !(hi > lo)) throw new ValidationError('highest energy shown', String(hi), 'must lie above the lowest');
+      app.setEnergyWindow(lo, hi);
+    } catch (error) {
+      if (!(error instanceof ValidationError)) throw error;
+      notices.show(error.message);
+    }
+  });
+}
+document.addEventListener('keydown', (event) => {
+  if (!(event.ctrlKey || event.metaKey) || event.key.toLowerCase() !== 'z') return;
+  if ((event.target as Element).closest('input, textarea, select')) return;
+  event.preventDefault();
+  if (event.shiftKey) app.redo();
+  else app.undo();
+});
+// A link pasted into the address bar, or the browser's back and forward: the new view, old one undoable.
+window.addEventListener('hashchange', () => {
+  const { state, errors } = readHash(location.hash, defaultState());
+  for (const error of errors) notices.show(`${error.message} — that part of the link was ignored`);
+  app.history.record(app.state);
+  candidates.fillForm(state.search);
+  void app.replace(state);
+});
+
+// For the browser test and the benchmark it prints: the controller and its timings.
+(window as unknown as { lacuna: unknown }).lacuna = { app, candidates };
+
+void app.start().then(() => {
+  if (opensDemo) void candidates.search();
+});

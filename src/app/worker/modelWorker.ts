@@ -1,0 +1,76 @@
+/**
+ * The model worker: everything that diagonalises H(k) — path bands, the mesh spectrum, DOS and filling, the
+ * σ-bonding analysis, and single Bloch states — off the page's thread. It keeps the last mesh spectrum, so a
+ * new Gaussian width needs no new diagonalisation.
+ */
+import type { Sheet } from '../../lattice/sheet.ts';
+import { prepareSpectra } from '../../figures/prepare.ts';
+import type { SpectraData } from '../../figures/types.ts';
+import { blochState } from '../../tb/blochState.ts';
+import { energyGrid, gaussianDos } from '../../tb/dos.ts';
+import { fillSpectrum } from '../../tb/fill.ts';
+import { TightBindingModel } from '../../tb/model.ts';
+import type { ParameterSet } from '../../tb/params.ts';
+import { sigmaBonding, type SigmaBondingResult } from '../../tb/sigmaBonding.ts';
+import { serveJobs } from './protocol.ts';
+
+export interface SpectraInput {
+  label: string;
+  sheet: Sheet;
+  params: ParameterSet;
+  doping: number;
+  smearing: number;
+  mesh: number;
+  pathPoints: number;
+  /** Hole density for the σ-bonding analysis, and whether it is an estimate. */
+  eta: number;
+  etaEstimated: boolean;
+}
+
+export interface SpectraOutput {
+  data: SpectraData;
+  bonding: SigmaBondingResult;
+}
+
+export interface WidthInput {
+  smearing: number;
+  doping: number;
+}
+
+export interface StateInput {
+  sheet: Sheet;
+  params: ParameterSet;
+  k: [number, number];
+  band: number;
+}
+
+let last: SpectraData | undefined;
+
+serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
+  spectra: (input: SpectraInput, progress) => {
+    const data = prepareSpectra(input.sheet, input.params, {
+      label: input.label,
+      doping: input.doping,
+      smearing: input.smearing,
+      mesh: input.mesh,
+      pathPoints: input.pathPoints,
+      onProgress: (done: number, total: number) => progress(done, total, 'k-points'),
+    });
+    last = data;
+    const bonding = sigmaBonding(data.spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing });
+    return { value: { data, bonding } satisfies SpectraOutput };
+  },
+  /** A new Gaussian width on the kept spectrum: DOS, E_F and the σ-bonding analysis again, no diagonalisation. */
+  width: (input: WidthInput & { eta: number; etaEstimated: boolean }) => {
+    if (!last) throw new Error('no spectrum kept; compute the spectra first');
+    const spectrum = last.spectrum;
+    const dos = gaussianDos(spectrum, energyGrid(spectrum), input.smearing);
+    const fermi = fillSpectrum(spectrum, { doping: input.doping, smearing: input.smearing }).fermi;
+    const bonding = sigmaBonding(spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing });
+    return { value: { dos, fermi, bonding } };
+  },
+  state: (input: StateInput) => {
+    const model = new TightBindingModel(input.sheet, input.params);
+    return { value: blochState(model, input.k[0], input.k[1], input.band) };
+  },
+});

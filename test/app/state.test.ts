@@ -1,0 +1,46 @@
+import { describe, expect, it } from 'vitest';
+import { defaultState, readHash, writeHash } from '../../src/app/state.ts';
+import { findSheetPreset } from '../../src/lattice/presets.ts';
+
+describe('readHash(hash, base) and writeHash(state)', () => {
+  it('reads #sheet=NAME as that preset with the CLI defaults (DESIGN.md, the web page contract)', () => {
+    const { state, errors } = readHash('#sheet=beta12', defaultState());
+    expect(errors).toEqual([]);
+    expect(state.sheet).toEqual({ kind: 'preset', name: 'beta12' });
+    expect(state.params).toEqual({ kind: 'preset', name: 'harrison1980' });
+    expect([state.mesh, state.smearing, state.doping]).toEqual([36, 0.1, 0]);
+    expect(writeHash(state)).toBe('#sheet=beta12');
+  });
+
+  it('round-trips an edited pattern, an own parameter set and the search', () => {
+    const state = defaultState();
+    state.sheet = { kind: 'pattern', label: 'my sheet', pattern: { ...findSheetPreset('chi3')!.pattern, name: undefined } };
+    delete (state.sheet.pattern as { name?: string }).name;
+    state.doping = 0.25;
+    state.pick = { kIndex: 12, band: 3 };
+    state.search = { sites: [2, 9], holes: [1, 2], isolated: false, eta: [0.1, 0.2], cell: { a: 5.1, b: 2.95, gamma: 90, lengthTolerance: 0.2, angleTolerance: 2 } };
+    const { state: back, errors } = readHash(writeHash(state), defaultState());
+    expect(errors).toEqual([]);
+    expect(back).toEqual(state);
+  });
+
+  it('reports each bad field by its key and keeps the rest', () => {
+    const { state, errors } = readHash('#sheet=alpha&doping=abc&mesh=0&sites=9-3&colour=red', defaultState());
+    expect(state.sheet).toEqual({ kind: 'preset', name: 'alpha' });
+    expect(state.doping).toBe(0);
+    expect(state.mesh).toBe(36);
+    expect(errors.map((e) => e.message)).toEqual([
+      'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance)',
+      'invalid URL doping: "abc" (not a number)',
+      'invalid URL mesh: "0" (must be from 1 to 400)',
+      'invalid URL sites: "9-3" (the range is empty (low end above high end))',
+    ]);
+  });
+
+  it('validates a sheet given as JSON in the hash with the sheet-file parser (field path named)', () => {
+    const hash = `#sheet=${encodeURIComponent('{"bond":1.69,"supercell":[[3,0],[0,0]],"vacancies":[]}')}`;
+    const { errors } = readHash(hash, defaultState());
+    expect(errors).toHaveLength(1);
+    expect(errors[0].message).toMatch(/^invalid supercell/);
+  });
+});
