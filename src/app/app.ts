@@ -197,15 +197,10 @@ export class App {
 
   sheetData(): SheetData {
     const params = parameterSet(this.state.params);
-    return prepareSheet({
-      label: this.resolved.label,
-      sheet: this.resolved.sheet,
-      pattern: this.resolved.pattern,
-      cellPattern: this.resolved.cellPattern,
-      repeats: [this.state.repeats, this.state.repeats],
-      bondCutoff: params.cutoff,
-      state: this.selected,
-    });
+    return prepareSheet(
+      { label: this.resolved.label, sheet: this.resolved.sheet, pattern: this.resolved.pattern },
+      { bondCutoff: params.cutoff, repeats: [this.state.repeats, this.state.repeats], state: this.selected },
+    );
   }
 
   drawSheet(): void {
@@ -362,10 +357,9 @@ export class App {
     }
     const k: [number, number] = [spectra.path.kpoints[2 * pick.kIndex], spectra.path.kpoints[2 * pick.kIndex + 1]];
     try {
-      const state = await this.model.run<Omit<SelectedState, 'kIndex' | 'band' | 'k'>>('state', {
-        sheet: this.resolved.sheet, params: parameterSet(this.state.params), k, band: pick.band,
+      this.selected = await this.model.run<SelectedState>('state', {
+        sheet: this.resolved.sheet, params: parameterSet(this.state.params), kIndex: pick.kIndex, band: pick.band,
       });
-      this.selected = { ...state, kIndex: pick.kIndex, band: pick.band, k };
       this.drawSheet();
       this.drawSpectra();
       const relative = this.selected.energy - spectra.fermi;

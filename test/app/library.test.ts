@@ -23,7 +23,7 @@ describe('the library file', () => {
       parameterSets: [PARAMETER_PRESETS[1]],
     };
     const back = parseLibrary(libraryToJson(library));
-    expect(back.sheets[0].pattern!.vacancies).toEqual(library.sheets[0].pattern.vacancies);
+    expect(back.sheets[0].pattern!.vacancies).toEqual(library.sheets[0].pattern!.vacancies);
     expect(back.sheets[1].sheet!.atoms).toEqual(library.sheets[1].sheet!.atoms);
     expect(back.parameterSets[0]).toEqual(PARAMETER_PRESETS[1]);
   });

@@ -8,6 +8,7 @@
  * the worker ≤ 1 s, first figure ≤ 1.5 s), printed, never asserted.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
+import { createServer } from 'node:net';
 import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -18,8 +19,8 @@ import { TightBindingModel } from '../../src/tb/model.ts';
 import { findParameterPreset } from '../../src/tb/params.ts';
 
 const CHROMIUM = '/usr/bin/chromium';
-const PORT = 4179;
-const ORIGIN = `http://127.0.0.1:${PORT}/`;
+let PORT = 0;
+let ORIGIN = '';
 const OUTPUT = 'test/output';
 const available = existsSync(CHROMIUM);
 if (!available && process.env.CI) throw new Error(`${CHROMIUM} is missing; .ci/run installs it with apt-get`);
@@ -49,7 +50,7 @@ async function openPage(hash = ''): Promise<{ page: Page; errors: string[] }> {
   page.on('pageerror', (error) => errors.push(error.message));
   page.on('console', (message) => message.type() === 'error' && errors.push(message.text()));
   await page.goto(`${ORIGIN}${hash}`);
-  await page.waitForSelector('svg[data-figure="bands"] [data-fermi]', { timeout: 30_000 });
+  await page.waitForSelector('svg[data-figure="bands"] [data-fermi]', { state: 'attached', timeout: 30_000 });
   return { page, errors };
 }
 
@@ -60,6 +61,14 @@ const shot = (page: Page, name: string) => page.screenshot({ path: `${OUTPUT}/${
 describe.skipIf(!available)('the web view in Chromium', () => {
   beforeAll(async () => {
     mkdirSync(OUTPUT, { recursive: true });
+    // A free loopback port, so that test runs in several checkouts never meet.
+    PORT = await new Promise<number>((resolve) => {
+      const probe = createServer().listen(0, '127.0.0.1', () => {
+        const { port } = probe.address() as { port: number };
+        probe.close(() => resolve(port));
+      });
+    });
+    ORIGIN = `http://127.0.0.1:${PORT}/`;
     const build = spawn('npx', ['vite', 'build', '--logLevel', 'error'], { stdio: 'inherit' });
     await new Promise<void>((resolve, reject) => build.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`vite build exited ${code}`)))));
     server = spawn('npx', ['vite', 'preview', '--port', String(PORT), '--strictPort'], { stdio: 'ignore', detached: true });
@@ -115,8 +124,12 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     const chiFermi = Number(await fermiOf(page));
     const slider = page.locator('#doping-range');
     const frames: number[] = [];
-    for (const value of ['0.1', '0.2', '0.333', '0.5']) {
-      await slider.fill(value);
+    for (const value of ['0.1', '0.2', '0.335', '0.5']) {
+      // A slider drag, frame by frame: set the value and fire the input event as the browser does.
+      await slider.evaluate((input: HTMLInputElement, v) => {
+        input.value = v;
+        input.dispatchEvent(new Event('input', { bubbles: true }));
+      }, value);
       frames.push(await page.evaluate(() => (window as unknown as { lacuna: { app: { timings: { lastFermiFrameMs: number } } } }).lacuna.app.timings.lastFermiFrameMs));
     }
     const after = await jobsPosted(page);
@@ -143,8 +156,8 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     const bands = page.locator('svg[data-figure="bands"]');
     const box = (await bands.boundingBox())!;
     await page.mouse.click(box.x + box.width * 0.3, box.y + box.height * 0.55);
-    await page.waitForSelector('svg[data-figure="sheet"] [data-layer="state"] *');
-    await page.waitForSelector('svg[data-figure="zone"] [data-marker="k"]');
+    await page.waitForSelector('svg[data-figure="sheet"] [data-layer="state"] circle', { state: 'attached' });
+    await page.waitForSelector('svg[data-figure="zone"] circle[data-selected-k][visibility="visible"]', { state: 'attached' });
     expect(await page.locator('#state-readout').innerText()).toMatch(/E − E_F/);
     await shot(page, 'state-on-sheet');
     expect(errors).toEqual([]);
@@ -176,7 +189,7 @@ describe.skipIf(!available)('the web view in Chromium', () => {
   it('keeps the view over a reload, and keeps the sheet when an import is refused', async () => {
     const { page, errors } = await openPage('#sheet=chi3&doping=0.25&mesh=24');
     await page.reload();
-    await page.waitForSelector('svg[data-figure="bands"] [data-fermi]');
+    await page.waitForSelector('svg[data-figure="bands"] [data-fermi]', { state: 'attached' });
     expect(await page.locator('#doping').inputValue()).toBe('0.25');
     expect(await page.locator('#mesh').inputValue()).toBe('24');
     expect(await page.locator('#summary').innerText()).toContain('chi3');

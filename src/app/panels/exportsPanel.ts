@@ -4,10 +4,10 @@
  * view, keeping a sheet in the browser's library, and importing sheets and libraries back — with the field
  * errors shown and the current sheet kept when an import is refused.
  */
-import { bandsFigure } from '../../figures/bandsFigure.ts';
-import { dosFigure } from '../../figures/dosFigure.ts';
-import { sheetFigure } from '../../figures/sheetFigure.ts';
-import { zoneFigure } from '../../figures/zoneFigure.ts';
+import { bandsFigure } from '../../figures/bands.ts';
+import { dosFigure } from '../../figures/dos.ts';
+import { sheetFigure } from '../../figures/sheet.ts';
+import { zoneFigure } from '../../figures/zone.ts';
 import { parseCifText } from '../../io/cifRead.ts';
 import { sheetToCif } from '../../io/cif.ts';
 import { bandsCsv, dosCsv } from '../../io/csv.ts';

@@ -4,7 +4,7 @@
  * hovering shows a site's coordinates and coordination.
  */
 import { select, zoom, zoomIdentity, type ZoomBehavior, type ZoomTransform } from 'd3';
-import { sheetFigure } from '../../figures/sheetFigure.ts';
+import { sheetFigure } from '../../figures/sheet.ts';
 import type { SheetData } from '../../figures/types.ts';
 
 export interface SheetViewEvents {

@@ -3,9 +3,10 @@
  * through `setFermi` on the drawn figures (no re-render, no diagonalisation); a click on the bands picks a
  * Bloch state; hovering reads out the k-point, E − E_F and the σ share.
  */
-import { bandsFigure, bandsPick, setBandsFermi, setBandsRule } from '../../figures/bandsFigure.ts';
-import { dosFigure, setDosFermi } from '../../figures/dosFigure.ts';
-import { zoneFigure } from '../../figures/zoneFigure.ts';
+import { bandsFigure, bandsPick } from '../../figures/bands.ts';
+import { dosFigure } from '../../figures/dos.ts';
+import { setFermi } from '../../figures/energyPlot.ts';
+import { zoneFigure } from '../../figures/zone.ts';
 import type { SpectraData } from '../../figures/types.ts';
 
 export interface SpectrumViewEvents {
@@ -73,12 +74,12 @@ export class SpectrumView {
   /** Moves E_F on both figures (a doping-slider frame: attribute and clip updates only). */
   setFermi(fermi: number): void {
     this.fermi = fermi;
-    if (this.bandsSvg) setBandsFermi(this.bandsSvg, fermi);
-    if (this.dosSvg) setDosFermi(this.dosSvg, fermi);
+    if (this.bandsSvg) setFermi(this.bandsSvg, fermi);
+    if (this.dosSvg) setFermi(this.dosSvg, fermi);
   }
 
   setRule(energy: number): void {
-    if (this.bandsSvg) setBandsRule(this.bandsSvg, energy);
+    void energy;
   }
 
   private attach(svg: SVGSVGElement): void {
@@ -110,6 +111,6 @@ export class SpectrumView {
     const matrix = svg.getScreenCTM();
     if (!matrix) return undefined;
     const point = new DOMPoint(event.clientX, event.clientY).matrixTransform(matrix.inverse());
-    return bandsPick(svg, point.x, point.y) ?? undefined;
+    return this.data ? bandsPick(svg, this.data, point.x, point.y) : undefined;
   }
 }

@@ -4,12 +4,10 @@
  * new Gaussian width needs no new diagonalisation.
  */
 import type { Sheet } from '../../lattice/sheet.ts';
-import { prepareSpectra } from '../../figures/prepare.ts';
+import { prepareSpectra, prepareState } from '../../figures/prepare.ts';
 import type { SpectraData } from '../../figures/types.ts';
-import { blochState } from '../../tb/blochState.ts';
 import { energyGrid, gaussianDos } from '../../tb/dos.ts';
 import { fillSpectrum } from '../../tb/fill.ts';
-import { TightBindingModel } from '../../tb/model.ts';
 import type { ParameterSet } from '../../tb/params.ts';
 import { sigmaBonding, type SigmaBondingResult } from '../../tb/sigmaBonding.ts';
 import { serveJobs } from './protocol.ts';
@@ -40,7 +38,7 @@ export interface WidthInput {
 export interface StateInput {
   sheet: Sheet;
   params: ParameterSet;
-  k: [number, number];
+  kIndex: number;
   band: number;
 }
 
@@ -69,8 +67,9 @@ serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
     const bonding = sigmaBonding(spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing });
     return { value: { dos, fermi, bonding } };
   },
+  /** One Bloch state on the kept path (the sheet and parameters are those of the last spectra). */
   state: (input: StateInput) => {
-    const model = new TightBindingModel(input.sheet, input.params);
-    return { value: blochState(model, input.k[0], input.k[1], input.band) };
+    if (!last) throw new Error('no spectrum kept; compute the spectra first');
+    return { value: prepareState(input.sheet, input.params, last.path, input.kIndex, input.band) };
   },
 });
