@@ -17,3 +17,5 @@ export * from './countingRule.ts';
 export * from './sigmaBonding.ts';
 export * from './ranking.ts';
 export * from './gapCheck.ts';
+export * from './sigmaBondingRefine.ts';
+export * from './dosInterpolated.ts';
