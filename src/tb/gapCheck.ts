@@ -16,11 +16,11 @@
  * Which states count: 'all' every band; 'sigma' the σ block of a planar sheet (its σ and π bands cross freely,
  * since the blocks decouple); on a buckled sheet 'sigma' means all bands.
  */
-import { diagonaliseRows } from './bands.ts';
+import { HermitianEigensolver } from './eigh.ts';
 import { reciprocal } from './kspace.ts';
 import { autoPath } from './kspacePath.ts';
 import type { MeshSpectrum } from './meshSpectrum.ts';
-import type { TightBindingModel } from './model.ts';
+import type { HamiltonianBlock, TightBindingModel } from './model.ts';
 
 /** Gaps narrower than this (eV) are bands that touch, up to rounding. */
 export const GAP_FLOOR = 1e-6;
@@ -56,6 +56,36 @@ export interface GapVerdict {
   edges?: { lower: GapWitness; upper: GapWitness };
   /** k-points checked besides the mesh: on the path and in the local search. */
   checked: { mesh: number; path: number; search: number };
+}
+
+/**
+ * Eigenvalues at one k with workspaces made once: the σ block alone, the σ and π blocks (planar, all bands) or
+ * the full matrix (buckled). Order within a row does not matter here: only counts and extremes are taken.
+ */
+class PointSpectrum {
+  readonly values: Float64Array;
+  private readonly parts: { block: HamiltonianBlock; solver: HermitianEigensolver; re: Float64Array; im: Float64Array; out: Float64Array }[];
+
+  constructor(private readonly model: TightBindingModel, blocks: HamiltonianBlock[]) {
+    let total = 0;
+    let offset = 0;
+    for (const block of blocks) total += model.size(block);
+    this.values = new Float64Array(total);
+    this.parts = blocks.map((block) => {
+      const n = model.size(block);
+      const out = this.values.subarray(offset, offset + n);
+      offset += n;
+      return { block, solver: new HermitianEigensolver(n), re: new Float64Array(n * n), im: new Float64Array(n * n), out };
+    });
+  }
+
+  at(kx: number, ky: number): Float64Array {
+    for (const part of this.parts) {
+      this.model.hamiltonian(kx, ky, part.block, part.re, part.im);
+      part.solver.eigenvalues(part.re, part.im, part.out);
+    }
+    return this.values;
+  }
 }
 
 /** The six neighbours of a point of the triangular grid of fractional k (pattern-search directions). */
@@ -127,7 +157,7 @@ export function checkGap(
 ): GapVerdict {
   const sigmaOnly = options.bands === 'sigma' && model.planar;
   const end = sigmaOnly ? model.size('sigma') : spectrum.bands;
-  const order = sigmaOnly ? 'blocks' : 'ascending';
+  const point = new PointSpectrum(model, sigmaOnly ? ['sigma'] : model.planar ? ['sigma', 'pi'] : ['full']);
   const tally = new Tally(0.5 * (interval.lower + interval.upper), interval.lower, interval.upper);
   const { mesh, bands, energies } = spectrum;
   const [b1, b2] = reciprocal(model.sheet.cell);
@@ -140,27 +170,22 @@ export function checkGap(
   const meshCount = tally.count;
   // 2. The automatic path, special points labelled.
   const path = autoPath(model.sheet.cell, Math.max(61, options.pathPoints ?? 2 * mesh + 1));
-  const pathE = new Float64Array(path.count * bands);
-  const pathW = new Float64Array(path.count * bands);
-  diagonaliseRows(model, path.kpoints, pathE, pathW, order);
   const labelAt = new Map(path.labels.map((l) => [l.index, l.label]));
   for (let p = 0; p < path.count; p++) {
-    tally.add(pathE, p * bands, p * bands + end, path.kpoints[2 * p], path.kpoints[2 * p + 1], labelAt.get(p));
+    const kx = path.kpoints[2 * p];
+    const ky = path.kpoints[2 * p + 1];
+    tally.add(point.at(kx, ky), 0, end, kx, ky, labelAt.get(p));
   }
   // 3. Local search from the highest state below and the lowest above (only worth it while a gap still stands).
   let searched = 0;
   if (tally.uniform && tally.bottom - tally.top > GAP_FLOOR) {
     const a = model.sheet.cell;
-    const k = new Float64Array(2);
-    const row = new Float64Array(bands);
-    const weight = new Float64Array(bands);
     // Local value at fractional (u, v) of (b1, b2): the highest state below mid (sign +1) or minus the lowest above.
     const probe = (u: number, v: number, sign: number): number => {
-      k[0] = u * b1[0] + v * b2[0];
-      k[1] = u * b1[1] + v * b2[1];
-      diagonaliseRows(model, k, row, weight, order);
+      const kx = u * b1[0] + v * b2[0];
+      const ky = u * b1[1] + v * b2[1];
       searched++;
-      tally.add(row, 0, end, k[0], k[1]);
+      tally.add(point.at(kx, ky), 0, end, kx, ky);
       return sign > 0 ? tally.high : -tally.low;
     };
     for (const sign of [1, -1]) {

@@ -23,7 +23,8 @@
  *
  * Convergence (our criterion): the capacity and the doping are counted twice at E*, from the mesh states (as
  * `fill` counts) and from the interpolated DOS; the mesh resolves the answer when both differ by at most
- * CONVERGENCE_TOLERANCE electrons per atom and any gap was checked off the mesh. src/tb/sigmaBondingRefine.ts
+ * CONVERGENCE_TOLERANCE electrons per atom, any gap was checked off the mesh, and E* does not lie in an interval
+ * that only the mesh leaves empty (a band crossing there is not resolved). src/tb/sigmaBondingRefine.ts
  * refines the mesh until then, within a work budget.
  */
 import { countingRuleDoping } from './countingRule.ts';
@@ -39,6 +40,8 @@ import type { TightBindingModel } from './model.ts';
  * ours, above the triangle method's own interpolation error on the presets at mesh 36 (below 0.008 there).
  */
 export const CONVERGENCE_TOLERANCE = 0.01;
+/** σ DOS values within this (states per eV per atom) of the minimum count as one flat minimum. */
+const PLATEAU = 1e-6;
 
 /** Options of the σ-bonding analysis. */
 export interface SigmaBondingOptions {
@@ -170,7 +173,14 @@ export function sigmaBonding(spectrum: MeshSpectrum, options: SigmaBondingOption
         best = i;
       }
     }
-    energy = interpolated.start + best * interpolated.step;
+    // A flat minimum (the interpolated bands leave a hole too, e.g. a band crossing whose apex lies off the
+    // mesh): take the middle of the flat run rather than its first point.
+    let first = best;
+    let last = best;
+    const flat = bestValue + PLATEAU;
+    while (first > index(low) && broadenedAt(interpolated, first - 1) <= flat) first--;
+    while (last < index(high) && last + 1 < interpolated.sigma.length && broadenedAt(interpolated, last + 1) <= flat) last++;
+    energy = interpolated.start + Math.round(0.5 * (first + last)) * interpolated.step;
   }
   const sigmaDos = gaussianDos(spectrum, Float64Array.of(energy), smearing).sigma[0];
   const sigmaDosInterpolated = broadenedAt(interpolated, index(energy));
@@ -179,7 +189,8 @@ export function sigmaBonding(spectrum: MeshSpectrum, options: SigmaBondingOption
   const fillingDoping = below.sigma + below.pi - 3;
   const converged = Math.abs(counted.sigma - below.sigma) <= CONVERGENCE_TOLERANCE
     && Math.abs(counted.total - 3 - fillingDoping) <= CONVERGENCE_TOLERANCE
-    && (!gap || options.model !== undefined);
+    && (!gap || options.model !== undefined)
+    && !meshGaps.some((g) => energy > g.lower && energy < g.upper);
   const result: SigmaBondingResult = {
     parameters: spectrum.parameters,
     mesh: spectrum.mesh,

@@ -1,7 +1,7 @@
 /**
  * The σ-bonding analysis on a mesh fine enough for it: start at a mesh (default 36, the CLI's), and while the
  * answer is not converged (src/tb/sigmaBonding.ts: mesh and interpolated counts differ by more than
- * CONVERGENCE_TOLERANCE) double the mesh, as long as the next mesh's work stays within a budget. When the budget
+ * CONVERGENCE_TOLERANCE, or E* sits in a hole of the mesh) go to nextMesh (at least double), as long as the next mesh's work stays within a budget. When the budget
  * stops it first, the result says so and names the next mesh to try.
  *
  * Work of a mesh: M²·(4n)³ — diagonalisations times the cube of the matrix size, how the eigensolver's cost grows.
@@ -39,6 +39,15 @@ export interface RefinedBonding {
   suggestedMesh?: number;
 }
 
+/**
+ * The next mesh: at least twice as dense and a multiple of 6, so that it holds Γ, M and K of a hexagonal zone and
+ * X, S, Y of a rectangular one (their fractional coordinates have denominators 2 and 3) — band crossings at those
+ * points are then on the mesh.
+ */
+export function nextMesh(mesh: number): number {
+  return 6 * Math.ceil((2 * mesh) / 6);
+}
+
 export function refinedSigmaBonding(model: TightBindingModel, options: RefinedBondingOptions): RefinedBonding {
   const budget = options.budget ?? REFINE_BUDGET;
   const size = model.size('full');
@@ -50,7 +59,8 @@ export function refinedSigmaBonding(model: TightBindingModel, options: RefinedBo
     const result = sigmaBonding(spectrum, { ...options, model });
     meshes.push(mesh);
     if (result.convergence.converged) return { result, spectrum, meshes };
-    if (options.refine === false || work(2 * mesh) > budget || 2 * mesh > MAX_FILL_MESH) return { result, spectrum, meshes, suggestedMesh: 2 * mesh };
-    mesh *= 2;
+    const next = nextMesh(mesh);
+    if (options.refine === false || work(next) > budget || next > MAX_FILL_MESH) return { result, spectrum, meshes, suggestedMesh: next };
+    mesh = next;
   }
 }

@@ -97,6 +97,21 @@ describe('refinedSigmaBonding(model, options) on δ6 (one atom per cell)', () =>
     expect(dense.sigmaCapacity).toBeCloseTo(2, 3);
   });
 
+  it('drops a σ gap that only a mesh without K shows, and does not call the answer converged there', () => {
+    // The lowest two σ bands meet at K (see above); at M = 35 K is off the mesh, which then shows a σ "gap" around
+    // their meeting energy. Without the model it is taken for a gap; with it the band found at K refutes it.
+    const spectrum = meshSpectrum(model, { mesh: 35 });
+    expect(sigmaBonding(spectrum, options).kind).toBe('gap');
+    const checked = sigmaBonding(spectrum, { ...options, model });
+    expect(checked.kind).toBe('pseudogap');
+    expect(checked.meshGaps?.[0].crossing?.label).toBe('K');
+    expect(checked.convergence.converged).toBe(false);
+    const refined = refinedSigmaBonding(model, { ...options, mesh: 35 });
+    expect(refined.meshes).toEqual([35, 72]);
+    expect(refined.result.convergence.converged).toBe(true);
+    expect(refined.result.sigmaCapacity).toBeCloseTo(2, 3);
+  });
+
   it('says plainly when an explicit mesh does not resolve the answer, and names the next mesh', () => {
     const { result, suggestedMesh, meshes } = refinedSigmaBonding(model, { ...options, mesh: 12, refine: false });
     expect(meshes).toEqual([12]);
