@@ -1,10 +1,12 @@
 /**
  * Filling a sheet with 3 + δ electrons per atom on the Γ-centred mesh (DESIGN.md, `fill` contract): the Fermi
  * level, σ and π electrons per atom (each state weighted by its s + px + py, resp. pz, share) and the band energy
- * per atom 2·Σ_k w_k Σ_b f·E / atoms, with w_k = 1/M².
+ * per atom 2·Σ_k w_k Σ_b f·E / atoms, with w_k = 1/M². When the count falls in an interval that the mesh leaves
+ * empty, E_F is its midpoint; whether the sheet has a gap there is decided with the model (src/tb/gapCheck.ts).
  */
 import { invalid } from '../io/invalid.ts';
 import { FermiSolver, occupation } from './fermi.ts';
+import { checkGap, type GapVerdict, type GapWitness } from './gapCheck.ts';
 import { DEFAULT_MESH, meshSpectrum, type MeshSpectrum } from './meshSpectrum.ts';
 import type { TightBindingModel } from './model.ts';
 
@@ -37,8 +39,20 @@ export interface FillResult {
   piElectronsPerAtom: number;
   /** 2·Σ f·E per atom (eV). */
   bandEnergyPerAtom: number;
-  /** Present when the count falls in a gap of the mesh spectrum; E_F is then its midpoint. */
+  /**
+   * Present only when the count falls in an interval empty on the mesh AND the bands have a gap there, checked
+   * with the model on the path through the special points (src/tb/gapCheck.ts): the gap's edges over every
+   * checked k. E_F is the midpoint of the mesh's empty interval, which contains the gap.
+   */
   inGap?: { lower: number; upper: number };
+  /**
+   * Present when the count falls in an interval empty on the mesh that is not a checked gap: the bands cross it
+   * (a hole between mesh points, e.g. K off the mesh), or no model was given to check it (`checked` false).
+   * E_F is then the interval's midpoint, a choice and not a gap of the sheet.
+   */
+  meshGap?: { lower: number; upper: number; checked: boolean; crossing?: GapWitness };
+  /** The full verdict on the mesh's empty interval, when one was checked. */
+  gapVerdict?: GapVerdict;
   mesh: number;
   smearing: number;
   doping: number;
@@ -48,6 +62,20 @@ export interface FillResult {
 export interface FillSpectrumOptions {
   doping?: number;
   smearing?: number;
+  /** The model of the spectrum: with it, an interval empty on the mesh is checked for a gap of the bands. */
+  model?: TightBindingModel;
+}
+
+/** Verdicts already reached per spectrum and interval (a scan meets the same interval at many dopings). */
+const verdicts = new WeakMap<MeshSpectrum, Map<string, GapVerdict>>();
+
+function verdictFor(model: TightBindingModel, spectrum: MeshSpectrum, interval: { lower: number; upper: number }): GapVerdict {
+  let known = verdicts.get(spectrum);
+  if (!known) verdicts.set(spectrum, (known = new Map()));
+  const key = `${interval.lower},${interval.upper}`;
+  let verdict = known.get(key);
+  if (!verdict) known.set(key, (verdict = checkGap(model, spectrum, interval)));
+  return verdict;
 }
 
 function checkDoping(doping: number): number {
@@ -102,7 +130,12 @@ export function fillSpectrum(spectrum: MeshSpectrum, options: FillSpectrumOption
     smearing,
     doping,
   };
-  if (level.inGap) result.inGap = level.inGap;
+  if (level.inGap) {
+    const verdict = options.model && verdictFor(options.model, spectrum, level.inGap);
+    if (verdict?.gap) result.inGap = { ...verdict.gap };
+    else result.meshGap = { ...level.inGap, checked: verdict !== undefined, ...(verdict?.crossing ? { crossing: verdict.crossing } : {}) };
+    if (verdict) result.gapVerdict = verdict;
+  }
   return result;
 }
 
@@ -112,5 +145,5 @@ export function fill(model: TightBindingModel, options: FillOptions = {}): FillR
   checkDoping(options.doping ?? 0);
   checkSmearing(options.smearing ?? DEFAULT_SMEARING);
   const spectrum = meshSpectrum(model, { mesh, onProgress: options.onProgress });
-  return fillSpectrum(spectrum, { doping: options.doping, smearing: options.smearing });
+  return fillSpectrum(spectrum, { doping: options.doping, smearing: options.smearing, model });
 }

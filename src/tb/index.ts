@@ -16,3 +16,6 @@ export * from './dosTriangle.ts';
 export * from './countingRule.ts';
 export * from './sigmaBonding.ts';
 export * from './ranking.ts';
+export * from './gapCheck.ts';
+export * from './sigmaBondingRefine.ts';
+export * from './dosInterpolated.ts';

@@ -2,7 +2,8 @@
  * Golden files of the CLI's JSON on the presets: regression guards for the contract output (shape and values),
  * not outside references — the outside checks live in the module tests. Numbers are rounded to 8 significant
  * digits so that floating-point noise does not count. A failing comparison writes `<name>.actual.json` beside
- * the golden file; set LACUNA_UPDATE_GOLDEN=1 to accept the new output.
+ * the golden file; set LACUNA_UPDATE_GOLDEN=1 to accept the new output. Locally a missing golden file is written
+ * (review it before committing); under CI (process.env.CI set) a missing file fails and nothing is written.
  */
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
@@ -26,7 +27,11 @@ async function matchesGolden(name: string, argv: string[]): Promise<void> {
   expect(await runCli(argv, io)).toBe(0);
   const actual = `${JSON.stringify(rounded(JSON.parse(io.stdout())), null, 1)}\n`;
   const file = join(GOLDEN, `${name}.json`);
-  if (process.env.LACUNA_UPDATE_GOLDEN || !existsSync(file)) writeFileSync(file, actual);
+  if (process.env.CI) {
+    // Under CI nothing is written first: a missing golden file would otherwise pass by construction.
+    expect(existsSync(file), `golden file ${name}.json is missing (create it locally, review it, commit it)`).toBe(true);
+    expect(process.env.LACUNA_UPDATE_GOLDEN, 'LACUNA_UPDATE_GOLDEN is refused under CI').toBeFalsy();
+  } else if (process.env.LACUNA_UPDATE_GOLDEN || !existsSync(file)) writeFileSync(file, actual);
   const expected = readFileSync(file, 'utf8');
   if (actual !== expected) writeFileSync(join(GOLDEN, `${name}.actual.json`), actual);
   expect(actual).toBe(expected);

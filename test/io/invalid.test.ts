@@ -26,6 +26,9 @@ describe('show(value)', () => {
 
 describe('invalid(field, value, why)', () => {
   it('throws the one error style, keeping the parts', () => {
+    // The form is the project's own rule (STYLE.md: "invalid <field>: <value> (<why>)").
+    expect.assertions(4);
+    expect(() => invalid('atoms[2][0]', 'x', 'not a number')).toThrow(ValidationError);
     try {
       invalid('atoms[2][0]', 'x', 'not a number');
     } catch (error) {

@@ -18,7 +18,8 @@ describe('sheetToXyz(sheet)', () => {
     expect(read.comment.get('pbc')).toBe('T T F');
     expect(read.lattice[2]).toEqual([0, 0, 15]);
     expect(read.species).toEqual(Array(8).fill('B'));
-    // α: 3×3 triangular cell of d = 1.69 Å, so a = b = 5.07 Å at 120° (reduced; Tang & Ismail-Beigi 2007).
+    // α has a 3×3 cell of the triangular net (Tang & Ismail-Beigi, PRL 99, 115501 (2007)), so a = b = 3d; with the
+    // presets' d = 1.69 Å (a bond length from memory, presets/sheets/alpha.json) that is 5.07 Å, at 120° reduced.
     expect(Math.hypot(...read.lattice[0])).toBeCloseTo(5.07, 7);
     expect(Math.hypot(...read.lattice[1])).toBeCloseTo(5.07, 7);
   });

@@ -69,13 +69,19 @@ describe('fill(model, options)', () => {
     expect(checked).toBe(2);
   });
 
-  it('places E_F mid-gap and says so when the count fills whole bands below a wide gap', () => {
+  it('places E_F mid-gap, and calls it a gap of the sheet only when the model confirms it', () => {
     // Honeycomb, δ = 0: 3 electrons per atom fill the three σ bonding bands of two atoms exactly (common practice).
     const spectrum = spectrumOf('honeycomb');
-    const result = fillSpectrum(spectrum, { doping: 0 });
-    expect(result.inGap).toBeDefined();
+    const unchecked = fillSpectrum(spectrum, { doping: 0 });
+    expect(unchecked.inGap).toBeUndefined();
+    expect(unchecked.meshGap).toMatchObject({ checked: false });
+    const empty = unchecked.meshGap as { lower: number; upper: number };
+    const result = fillSpectrum(spectrum, { doping: 0, model: new TightBindingModel(presetSheet('honeycomb'), HARRISON_1980) });
+    expect(result.meshGap).toBeUndefined();
     const gap = result.inGap as { lower: number; upper: number };
-    expect(result.fermi).toBe(0.5 * (gap.lower + gap.upper));
+    expect(gap.lower).toBeGreaterThanOrEqual(empty.lower);
+    expect(gap.upper).toBeLessThanOrEqual(empty.upper);
+    expect(result.fermi).toBe(0.5 * (empty.lower + empty.upper));
     expect(Math.abs(result.electronsPerAtom - 3)).toBeLessThan(1e-10);
     expect(result.sigmaElectronsPerAtom).toBeCloseTo(3, 10);
   });

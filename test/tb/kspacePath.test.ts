@@ -14,10 +14,13 @@ describe('cellType(cell)', () => {
     expect(cellType(presetSheet('honeycomb').cell)).toBe('hexagonal');
     expect(cellType(presetSheet('beta12').cell)).toBe('rectangular');
     expect(cellType(presetSheet('chi3').cell)).toBe('centred-rectangular');
+    // The five 2D Bravais nets by their reduced cells (common practice): square |u| = |v| at 90°; oblique, no
+    // equal lengths nor right angle (here |u| = 2, |v| ≈ 3.11, u·v = 0.6); centred rectangular when the projection
+    // of v on u is half of u (u·v = |u|²/2 = 2 here: the net has a mirror line along u without a right angle).
     expect(cellType([[2, 0], [0, 2]])).toBe('square');
     expect(cellType([[2, 0], [0.3, 3.1]])).toBe('oblique');
     expect(cellType([[2, 0], [1, 3.1]])).toBe('centred-rectangular');
-    // A skewed basis of the hexagonal net is still hexagonal after reduction.
+    // A skewed basis of the hexagonal net is still hexagonal after reduction: v − 3u = (1/2, √3/2) (common practice).
     expect(cellType([[1, 0], [3.5, SQRT3 / 2]])).toBe('hexagonal');
   });
 });
@@ -33,6 +36,9 @@ describe('specialPoints(cell)', () => {
   });
 
   it('puts X, S, Y of a rectangular a × b cell at π/a, (π/a, π/b), π/b', () => {
+    // The zone of a rectangular net is the rectangle |kx| ≤ π/a, |ky| ≤ π/b: X, S, Y are its edge midpoints and
+    // corner (common practice; labels as Setyawan & Curtarolo, Comput. Mater. Sci. 49, 299 (2010), for the
+    // orthorhombic zone's kz = 0 face).
     const { points } = specialPoints([[2, 0], [0, 5]]);
     expect(points.map((p) => p.label)).toEqual(['Γ', 'X', 'S', 'Y', 'Γ']);
     expect(points[1].k[0]).toBeCloseTo(Math.PI / 2, 12);
@@ -44,6 +50,8 @@ describe('specialPoints(cell)', () => {
   it('puts zone corners equidistant from Γ and the two neighbouring reciprocal vectors (Wigner–Seitz construction)', () => {
     const cell: Sheet['cell'] = [[2, 0], [0.3, 3.1]];
     const { points } = specialPoints(cell);
+    // Label order: our own choice for oblique and centred-rectangular zones (src/tb/kspacePath.ts), following the
+    // X/Y/C/H names of Setyawan & Curtarolo (2010) for the monoclinic zone — a regression guard on that choice.
     expect(points.map((p) => p.label)).toEqual(['Γ', 'X', 'H1', 'Y', 'H2', 'C', 'Γ']);
     const [x, h1, y] = [points[1].k, points[2].k, points[3].k];
     const g1: [number, number] = [2 * x[0], 2 * x[1]];

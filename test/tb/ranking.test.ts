@@ -16,6 +16,8 @@ describe('rankByBandEnergy(patterns, params, options)', () => {
       HARRISON_1980, { mesh: 12 },
     );
     expect(result.parameters).toBe('harrison1980');
+    // η: δ6 has no holes (η = 0) and α one hole in a 3×3 cell, η = 1/9 (Tang & Ismail-Beigi, PRL 99, 115501
+    // (2007)); the stripe has 1 hole in 9 sites by construction.
     expect(result.groups.map((g) => g.holeDensity)).toEqual([0, 1 / 9]);
     const group = result.groups[1];
     expect(group.patterns.map((p) => p.name).sort()).toEqual(['alpha', 'stripe']);

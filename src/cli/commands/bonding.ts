@@ -4,11 +4,12 @@
  */
 import { estimateHoleDensity } from '../../lattice/geometry.ts';
 import { holeDensity } from '../../lattice/pattern.ts';
-import { fillSpectrum, sigmaBonding } from '../../tb/index.ts';
+import { CONVERGENCE_TOLERANCE, DEFAULT_SMEARING, fillSpectrum, refinedSigmaBonding, type SigmaBondingResult } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
-import { resolveSpectrum } from '../parameters.ts';
+import { MESH_WORK, resolveModel } from '../parameters.ts';
+import { ProgressLine } from '../progress.ts';
 
 const spec: CommandSpec = {
   name: 'bonding',
@@ -19,13 +20,50 @@ const spec: CommandSpec = {
 
 const RULE_NOTE = 'counting rule δ = 8/(3(1 − η)) − 3: the classic estimate of the doping that just fills the in-plane σ bonding states; a rule of thumb, not a result';
 
+const CONVERGENCE_NOTE = 'capacity and doping are counted from the mesh states and again from the bands interpolated between mesh points (linear triangle method, same Gaussian); converged when both agree within the tolerance (electrons per atom) and any gap was checked on the path through the special points';
+
+/** What the text output says about the mesh: refined, converged or not, mesh-only gaps. */
+function convergenceLines(analysis: SigmaBondingResult, meshes: number[], suggestedMesh: number | undefined): string[] {
+  const lines: string[] = [];
+  if (meshes.length > 1) lines.push(`  mesh refined ${meshes.join(' → ')}: the coarser meshes did not resolve width σ near E*`);
+  for (const g of analysis.meshGaps ?? []) {
+    const at = g.crossing ? ` (a σ band passes ${g.crossing.energy.toFixed(3)} eV at ${g.crossing.label ?? 'a k-point off the mesh'})` : '';
+    lines.push(`  ${g.lower.toFixed(3)} … ${g.upper.toFixed(3)} eV holds no σ state of the mesh but is no gap of the sheet${at}`);
+  }
+  if (!analysis.convergence.converged) {
+    const c = analysis.convergence;
+    lines.push(`  NOT CONVERGED at mesh ${analysis.mesh}: the bands interpolated between mesh points give capacity ${c.sigmaCapacity.toFixed(3)} and doping ${c.fillingDoping.toFixed(3)}${suggestedMesh ? `; try --mesh ${suggestedMesh}` : ''}`);
+  }
+  return lines;
+}
+
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  const { sheet, model, spectrum, smearing } = resolveSpectrum(positionals.SHEET, flags, io);
+  const { sheet, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io, MESH_WORK(flags));
+  const smearing = (flags.smearing as number | undefined) ?? DEFAULT_SMEARING;
   const estimate = sheet.pattern ? undefined : estimateHoleDensity(sheet.sheet);
   const eta = sheet.pattern ? holeDensity(sheet.pattern) : estimate!.eta;
-  const analysis = sigmaBonding(spectrum, { holeDensity: eta, holeDensityEstimated: estimate !== undefined && !estimate.exact, smearing });
+  const progress = new ProgressLine(io.err, 'k-points');
+  // An explicit --mesh is kept as given; the default mesh is refined until the answer converges (within budget).
+  const { result: analysis, spectrum, meshes, suggestedMesh } = refinedSigmaBonding(model, {
+    holeDensity: eta,
+    holeDensityEstimated: estimate !== undefined && !estimate.exact,
+    smearing,
+    mesh: flags.mesh as number | undefined,
+    refine: flags.mesh === undefined,
+    onProgress: (done, total) => progress.update(done, done / total),
+  });
+  progress.done();
   const neutral = fillSpectrum(spectrum, { smearing });
+  const convergence = {
+    converged: analysis.convergence.converged,
+    meshes,
+    ...(suggestedMesh ? { suggested_mesh: suggestedMesh } : {}),
+    interpolated: { sigma_capacity: analysis.convergence.sigmaCapacity, doping: analysis.convergence.fillingDoping },
+    tolerance: CONVERGENCE_TOLERANCE,
+    ...(analysis.convergence.gapChecked !== undefined ? { gap_checked: analysis.convergence.gapChecked } : {}),
+    note: CONVERGENCE_NOTE,
+  };
   if (flags.json) {
     const document: Record<string, unknown> = {
       sheet: sheet.label,
@@ -40,10 +78,13 @@ function run(argv: readonly string[], io: CliIo): number {
         energy: analysis.energy,
         ...(analysis.gap ? { gap: analysis.gap } : {}),
         sigma_dos: analysis.sigmaDos,
+        sigma_dos_interpolated: analysis.sigmaDosInterpolated,
         sigma_capacity: analysis.sigmaCapacity,
         doping: analysis.fillingDoping,
         ...(analysis.fillingRange ? { doping_range: analysis.fillingRange } : {}),
+        ...(analysis.meshGaps ? { mesh_gaps: analysis.meshGaps } : {}),
       },
+      convergence,
       neutral: { fermi: neutral.fermi, sigma_electrons_per_atom: neutral.sigmaElectronsPerAtom, pi_electrons_per_atom: neutral.piElectronsPerAtom },
     };
     io.out(`${JSON.stringify(document)}\n`);
@@ -52,9 +93,10 @@ function run(argv: readonly string[], io: CliIo): number {
   const f = (x: number, digits = 3) => (x >= 0 ? ' ' : '') + x.toFixed(digits);
   const where = analysis.gap
     ? `σ gap ${analysis.gap.lower.toFixed(3)} … ${analysis.gap.upper.toFixed(3)} eV (E* = ${analysis.energy.toFixed(3)}, mid-gap)`
-    : `σ pseudogap at E* = ${analysis.energy.toFixed(3)} eV (σ DOS ${analysis.sigmaDos.toFixed(4)} states/eV/atom)`;
+    : `σ pseudogap at E* = ${analysis.energy.toFixed(3)} eV (σ DOS ${analysis.sigmaDosInterpolated.toFixed(4)} states/eV/atom, bands interpolated between mesh points)`;
   const lines = [
     `${sheet.label}: ${model.atoms} atoms, η = ${eta.toFixed(4)}${analysis.countingRule.estimated ? ' (estimated from the geometry)' : ''}, parameters ${analysis.parameters}, ${analysis.mesh}×${analysis.mesh} mesh, σ = ${analysis.smearing} eV`,
+    ...convergenceLines(analysis, meshes, suggestedMesh),
     `  ${where}`,
     `  σ bonding capacity               ${f(analysis.sigmaCapacity)} electrons per atom`,
     `  doping that fills it (to E*)     ${f(analysis.fillingDoping)} e/atom${analysis.fillingRange ? `   (any of ${analysis.fillingRange.lower.toFixed(3)} … ${analysis.fillingRange.upper.toFixed(3)} keeps σ bonding full and σ antibonding empty)` : ''}`,

@@ -1,7 +1,7 @@
 /**
  * `lacuna fill`: the Fermi level and the σ/π electron split for 3 + δ electrons per atom (DESIGN.md contract).
  */
-import { fill } from '../../tb/index.ts';
+import { fill, type FillResult } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import type { Command, CliIo } from '../io.ts';
 import { DOPING_FLAG, JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
@@ -20,6 +20,19 @@ const spec: CommandSpec = {
     json: JSON_FLAG,
   },
 };
+
+const MESH_GAP_NOTE = 'no state of the mesh lies in this interval, but the bands cross it between mesh points: a gap of the k-mesh, not of the sheet; E_F is put at its middle';
+
+/** What the text output says after E_F when the count falls in an interval the mesh leaves empty. */
+function gapText(result: FillResult): string {
+  if (result.inGap) {
+    return `  (in a gap of the bands ${result.inGap.lower.toFixed(3)} … ${result.inGap.upper.toFixed(3)} eV, checked on the mesh and the path through the special points: placed mid-gap)`;
+  }
+  if (!result.meshGap) return '';
+  const { lower, upper, crossing } = result.meshGap;
+  const where = crossing ? `; a band passes ${crossing.energy.toFixed(3)} eV at ${crossing.label ?? `k = (${crossing.k.map((x) => x.toFixed(3)).join(', ')}) Å⁻¹`}` : '';
+  return `  (no mesh state in ${lower.toFixed(3)} … ${upper.toFixed(3)} eV, but that is a gap of the ${result.mesh}×${result.mesh} mesh only, not of the sheet${where}; E_F placed in its middle)`;
+}
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
@@ -46,11 +59,15 @@ function run(argv: readonly string[], io: CliIo): number {
       sheet: sheet.label,
     };
     if (result.inGap) document.in_gap = result.inGap;
+    if (result.meshGap) {
+      const { lower, upper, crossing } = result.meshGap;
+      document.mesh_gap = { lower, upper, ...(crossing ? { crossing: { k: crossing.k, ...(crossing.label ? { label: crossing.label } : {}), energy: crossing.energy } } : {}), note: MESH_GAP_NOTE };
+    }
     io.out(`${JSON.stringify(document)}\n`);
   } else {
     const lines = [
       `${sheet.label}: ${model.atoms} atoms, parameters ${result.parameters}, δ = ${result.doping} e/atom, ${result.mesh}×${result.mesh} mesh, σ = ${result.smearing} eV`,
-      `Fermi level            ${result.fermi.toFixed(4)} eV${result.inGap ? `  (in a gap ${result.inGap.lower.toFixed(3)} … ${result.inGap.upper.toFixed(3)} eV: placed mid-gap)` : ''}`,
+      `Fermi level            ${result.fermi.toFixed(4)} eV${gapText(result)}`,
       `electrons per atom     ${result.electronsPerAtom.toFixed(4)}  (σ ${result.sigmaElectronsPerAtom.toFixed(4)}, π ${result.piElectronsPerAtom.toFixed(4)})`,
       `band energy per atom   ${result.bandEnergyPerAtom.toFixed(4)} eV`,
       MODEL_CAVEAT,

@@ -34,13 +34,13 @@ function run(argv: readonly string[], io: CliIo): number {
   if (from <= -3 || to >= 5) invalid('--dopings', shown, 'every δ must lie strictly between −3 and 5 (0 to 8 electrons per atom)');
   const steps = Math.floor((to - from) / step + 1e-9) + 1;
   if (steps > MAX_SCAN_STEPS) invalid('--dopings', shown, `${steps} dopings; at most ${MAX_SCAN_STEPS}`);
-  const { sheet, spectrum, smearing } = resolveSpectrum(positionals.SHEET, flags, io);
+  const { sheet, model, spectrum, smearing } = resolveSpectrum(positionals.SHEET, flags, io);
   const solver = new FermiSolver(spectrum);
   const rows = [];
   for (let i = 0; i < steps; i++) {
     const doping = +(from + i * step).toPrecision(12);
-    const r = fillSpectrum(spectrum, { doping, smearing }, solver);
-    rows.push({ doping, fermi: r.fermi, sigma: r.sigmaElectronsPerAtom, pi: r.piElectronsPerAtom, band: r.bandEnergyPerAtom, inGap: r.inGap });
+    const r = fillSpectrum(spectrum, { doping, smearing, model }, solver);
+    rows.push({ doping, fermi: r.fermi, sigma: r.sigmaElectronsPerAtom, pi: r.piElectronsPerAtom, band: r.bandEnergyPerAtom, inGap: r.inGap, meshGap: r.meshGap });
   }
   if (flags.json) {
     io.out(`${JSON.stringify({
@@ -55,6 +55,7 @@ function run(argv: readonly string[], io: CliIo): number {
         pi_electrons_per_atom: r.pi,
         band_energy_per_atom: r.band,
         ...(r.inGap ? { in_gap: r.inGap } : {}),
+        ...(r.meshGap ? { mesh_gap: { lower: r.meshGap.lower, upper: r.meshGap.upper } } : {}),
       })),
     })}\n`);
     return 0;
@@ -64,7 +65,7 @@ function run(argv: readonly string[], io: CliIo): number {
     '      δ     E_F (eV)    σ e/atom   π e/atom   band energy (eV/atom)',
   ];
   for (const r of rows) {
-    lines.push(`${r.doping.toFixed(3).padStart(7)}  ${r.fermi.toFixed(4).padStart(10)}  ${r.sigma.toFixed(4).padStart(9)}  ${r.pi.toFixed(4).padStart(9)}  ${r.band.toFixed(4).padStart(12)}${r.inGap ? '   (mid-gap)' : ''}`);
+    lines.push(`${r.doping.toFixed(3).padStart(7)}  ${r.fermi.toFixed(4).padStart(10)}  ${r.sigma.toFixed(4).padStart(9)}  ${r.pi.toFixed(4).padStart(9)}  ${r.band.toFixed(4).padStart(12)}${r.inGap ? '   (mid-gap)' : r.meshGap ? '   (in a gap of the mesh only)' : ''}`);
   }
   lines.push(MODEL_CAVEAT);
   io.out(`${lines.join('\n')}\n`);
