@@ -70,6 +70,7 @@ export class CandidatesPanel {
     this.lane = new WorkerLane(createWorker, 'search');
     const form = $<HTMLFormElement>(doc, '#search-form');
     this.fillForm(app.state.search);
+    $<HTMLElement>(doc, '#candidates-summary').textContent = 'Give a range of cell sizes and hole counts (and, if you have one, the cell you measured), then press list.';
     form.addEventListener('submit', (event) => {
       event.preventDefault();
       void this.search();

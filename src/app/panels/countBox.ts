@@ -3,6 +3,7 @@
  * states are just filled, and what the current doping gives — the reasoning a user tests on any pattern.
  */
 import type { SigmaBondingResult } from '../../tb/sigmaBonding.ts';
+import { nextMesh } from '../../tb/sigmaBondingRefine.ts';
 
 export interface CountFigures {
   eta: number;
@@ -38,6 +39,9 @@ export function drawCountBox(host: HTMLElement, figures: CountFigures): void {
     const where = bonding.gap ? `gap ${bonding.gap.lower.toFixed(2)} … ${bonding.gap.upper.toFixed(2)} eV` : `pseudogap at ${bonding.energy.toFixed(2)} eV`;
     rows.push(['model fills σ bonding at δ', `${signed(bonding.fillingDoping)} e/atom`, `the model's σ bonding states end in a ${where}`]);
     if (bonding.fillingRange) rows.push(['… any δ between', `${signed(bonding.fillingRange.lower)} and ${signed(bonding.fillingRange.upper)}`, 'keeps σ bonding full and σ antibonding empty']);
+    if (!bonding.convergence.converged) {
+      rows.push(['not converged at this mesh', `mesh ${figures.mesh}: try ${nextMesh(figures.mesh)}`, `the σ count from the mesh states and from the bands interpolated between them differ (${signed(bonding.convergence.fillingDoping)} e/atom interpolated): the mesh is too coarse for this analysis`]);
+    }
   }
   rows.push(['doping now δ', `${signed(figures.doping)} e/atom`, 'positive: electrons given by the metal']);
   if (figures.fermi !== undefined) rows.push(['Fermi level E_F', `${figures.fermi.toFixed(3)} eV`]);

@@ -8,6 +8,7 @@ import { prepareSpectra, prepareState } from '../../figures/prepare.ts';
 import type { SpectraData } from '../../figures/types.ts';
 import { energyGrid, gaussianDos } from '../../tb/dos.ts';
 import { fillSpectrum } from '../../tb/fill.ts';
+import { TightBindingModel } from '../../tb/model.ts';
 import type { ParameterSet } from '../../tb/params.ts';
 import { sigmaBonding, type SigmaBondingResult } from '../../tb/sigmaBonding.ts';
 import { serveJobs } from './protocol.ts';
@@ -43,6 +44,8 @@ export interface StateInput {
 }
 
 let last: SpectraData | undefined;
+/** The model of the last spectra: σ-bonding gaps found on the mesh are checked off it. */
+let lastModel: TightBindingModel | undefined;
 
 serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
   spectra: (input: SpectraInput, progress) => {
@@ -55,7 +58,8 @@ serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
       onProgress: (done: number, total: number) => progress(done, total, 'k-points'),
     });
     last = data;
-    const bonding = sigmaBonding(data.spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing });
+    lastModel = new TightBindingModel(input.sheet, input.params);
+    const bonding = sigmaBonding(data.spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing, model: lastModel });
     return { value: { data, bonding } satisfies SpectraOutput };
   },
   /** A new Gaussian width on the kept spectrum: DOS, E_F and the σ-bonding analysis again, no diagonalisation. */
@@ -64,7 +68,7 @@ serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
     const spectrum = last.spectrum;
     const dos = gaussianDos(spectrum, energyGrid(spectrum), input.smearing);
     const fermi = fillSpectrum(spectrum, { doping: input.doping, smearing: input.smearing }).fermi;
-    const bonding = sigmaBonding(spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing });
+    const bonding = sigmaBonding(spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing, model: lastModel });
     return { value: { dos, fermi, bonding } };
   },
   /** One Bloch state on the kept path (the sheet and parameters are those of the last spectra). */
