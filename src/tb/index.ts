@@ -16,3 +16,5 @@ export * from './dosTriangle.ts';
 export * from './countingRule.ts';
 export * from './sigmaBonding.ts';
 export * from './ranking.ts';
+export * from './zone.ts';
+export * from './blochState.ts';
