@@ -1,7 +1,7 @@
 /**
  * SVG text of a figure, the same in a browser and headless: our own small XML writer (attributes in document
  * order, `xmlns` on the root), so a file written by the CLI and an export from the page are byte-identical for
- * the same figure. serializeFigure also rounds numbers and renumbers ids, for golden files.
+ * the same figure (attributes sorted by name, since DOMs differ in their order). serializeFigure also rounds numbers and renumbers ids, for golden files.
  */
 import { SVG_NS } from './frame.ts';
 
@@ -20,12 +20,10 @@ function write(node: Node, out: string[], attribute: Rewrite, depth: number, pre
   const element = node as Element;
   const name = element.localName;
   let text = `<${name}`;
-  const attributes = element.attributes;
-  if (depth === 0 && !element.hasAttribute('xmlns')) text += ` xmlns="${SVG_NS}"`;
-  for (let i = 0; i < attributes.length; i++) {
-    const a = attributes[i];
-    text += ` ${a.name}="${escapeAttribute(attribute(a.name, a.value))}"`;
-  }
+  if (depth === 0) text += ` xmlns="${SVG_NS}"`;
+  // Sorted by name: DOM implementations list attributes in different orders (linkedom: newest first).
+  const attributes = Array.from(element.attributes, (a) => [a.name, a.value]).filter(([n]) => n !== 'xmlns').sort((p, q) => (p[0] < q[0] ? -1 : p[0] > q[0] ? 1 : 0));
+  for (const [n, value] of attributes) text += ` ${n}="${escapeAttribute(attribute(n, value))}"`;
   const children = element.childNodes;
   const indent = pretty ? `\n${'  '.repeat(depth)}` : '';
   if (children.length === 0) {
