@@ -63,7 +63,10 @@ export function placeSites(data: SheetData): PlacedSite[] {
     for (let n1 = 0; n1 < r1; n1++) {
       for (let j = 0; j < c; j++) {
         for (let i = 0; i < a; i++) {
-          const I = i + n1 * a + n2 * b;
+          // The representative of (i, j) inside the parallelogram of A1, A2: fraction along A1 is (i·c − j·b)/(a·c),
+          // so shift i by a·floor of it (exact in integers), then translate the copy by n1·A1 + n2·A2.
+          const inside = i - a * Math.floor((i * c - j * b) / (a * c));
+          const I = inside + n1 * a + n2 * b;
           const J = j + n2 * c;
           const [x, y] = latticePoint(I, J, pattern.bond);
           if (vacant.has(j * a + i)) {
