@@ -5,7 +5,6 @@
 import { invalid } from '../../io/invalid.ts';
 import { bandsFigure } from '../../figures/bands.ts';
 import { dosFigure } from '../../figures/dos.ts';
-import { headlessDocument } from '../../figures/headless.ts';
 import { prepareSheet, prepareSpectra } from '../../figures/prepare.ts';
 import { svgText } from '../../figures/serialize.ts';
 import { sheetFigure } from '../../figures/sheet.ts';
@@ -66,6 +65,8 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const params = resolveParameters(flags.params as string | undefined, io);
   const repeats = (flags.repeats as number | undefined) ?? 3;
   const sheetData = prepareSheet({ label: source.label, sheet: source.sheet, pattern: source.pattern }, { bondCutoff: params.cutoff, repeats: [repeats, repeats] });
+  // Loaded here, not at start-up: no other command pays for the DOM.
+  const { headlessDocument } = await import('../../figures/headless.ts');
   const document = headlessDocument();
   const options = { document, style: 'publication' as const };
   let spectra: SpectraData | undefined;
