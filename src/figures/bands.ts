@@ -115,7 +115,7 @@ export function bandsFigure(data: SpectraData, options: BandsOptions): SVGSVGEle
     ? [{ label: 'σ (s, px, py)', colour: SIGMA_COLOUR }, { label: 'π (pz)', colour: PI_COLOUR }]
     : [{ label: 'σ', colour: SIGMA_COLOUR }, { label: 'half σ, half π', colour: shareColour(0.5) }, { label: 'π', colour: PI_COLOUR }];
   const legendEntries: { label: string; colour: string; opacity?: number }[] = legend;
-  legendEntries.push({ label: 'empty (above E_F)', colour: SIGMA_COLOUR, opacity: EMPTY_OPACITY });
+  legendEntries.push({ label: 'empty states', colour: SIGMA_COLOUR, opacity: EMPTY_OPACITY });
   drawLegend(frame.svg, margins.left, margins.top - 10, lk, legendEntries);
 
   plot.append('circle').attr('data-selected', '').attr('r', 4.5).attr('fill', 'none').attr('stroke', INK).attr('stroke-width', 2)

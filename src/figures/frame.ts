@@ -37,7 +37,6 @@ export function figureFrame(
   if (!(width > 0 && height > 0)) throw new TypeError(`invalid size: ${width}×${height} (must be positive)`);
   const prefix = options.idPrefix ?? `lacuna-${kind}-${++drawn}`;
   const svg = select(options.document.createElementNS(SVG_NS, 'svg') as SVGSVGElement)
-    .attr('xmlns', SVG_NS)
     .attr('data-figure', kind)
     .attr('data-style', lk.style)
     .attr('width', width)
