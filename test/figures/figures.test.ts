@@ -159,3 +159,26 @@ describe('sheetFigure(data, options)', () => {
     for (const colours of byAtom.values()) expect(colours.size).toBe(1);
   });
 });
+
+describe('figures of sheets that are not presets', () => {
+  it('draws an explicit (buckled) sheet: atoms per repeat, no lattice sites, bonds cut on the 3D distance', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { parseSheetText } = await import('../../src/io/sheetFile.ts');
+    const file = 'presets/demo/hsl-0427-sheet.json';
+    const parsed = parseSheetText(readFileSync(file, 'utf8'), file);
+    const data = prepareSheet({ label: 'demo', sheet: parsed.sheet, pattern: parsed.pattern }, { bondCutoff: PARAMS.cutoff, repeats: [2, 3] });
+    const svg = sheetFigure(data, { document });
+    expect(svg.querySelectorAll('circle[data-atom]').length).toBe(5 * 6);
+    expect(svg.querySelectorAll('[data-site]').length).toBe(0);
+    expect(svg.querySelectorAll('[data-handle]').length).toBe(2);
+  });
+
+  it('draws the oblique zone as a hexagon with the path Γ–X–H1–Y–H2–C–Γ', async () => {
+    const { prepareSpectra } = await import('../../src/figures/prepare.ts');
+    const spectra = prepareSpectra({ cell: [[2.9, 0], [0.5, 3.3]], atoms: [[0, 0, 0]] }, PARAMS, { label: 'oblique', mesh: 4, pathPoints: 30 });
+    const svg = zoneFigure(spectra, { document, style: 'publication' });
+    expect(svg.querySelector('polygon[data-layer="zone"]')!.getAttribute('points')!.split(' ')).toHaveLength(6);
+    expect([...svg.querySelectorAll('[data-k-label]')].map((c) => c.getAttribute('data-k-label'))).toEqual(['Γ', 'X', 'H1', 'Y', 'H2', 'C']);
+    expect([...svg.querySelectorAll('[data-role="axis-title"]')].map((t) => t.textContent)).toEqual(['kx (Å⁻¹)', 'ky (Å⁻¹)']);
+  });
+});
