@@ -11,6 +11,7 @@ export default defineConfig({
     target: 'node20',
     minify: false,
     lib: { entry: 'src/cli/main.ts', formats: ['es'], fileName: () => 'lacuna.js' },
-    rollupOptions: { external: [...builtinModules, ...builtinModules.map((m) => `node:${m}`)] },
+    // resvg loads a native binary and linkedom is plain Node code: both stay in node_modules, not in the bundle.
+    rollupOptions: { external: [...builtinModules, ...builtinModules.map((m) => `node:${m}`), '@resvg/resvg-js', 'linkedom'] },
   },
 });

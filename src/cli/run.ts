@@ -12,6 +12,7 @@ import { enumerateCommand } from './commands/enumerate.ts';
 import { exportCommand } from './commands/export.ts';
 import { fillCommand } from './commands/fill.ts';
 import { geometryCommand } from './commands/geometry.ts';
+import { plotCommand } from './commands/plot.ts';
 import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
 import { scanCommand } from './commands/scan.ts';
@@ -19,7 +20,7 @@ import type { CliIo, Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
-  presetsCommand, benchCommand,
+  plotCommand, presetsCommand, benchCommand,
 ];
 
 function overview(): string {

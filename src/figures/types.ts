@@ -22,6 +22,8 @@ export interface FigureOptions {
   /** Outer size in CSS pixels (defaults per figure and style). */
   width?: number;
   height?: number;
+  /** Prefix of the figure's element ids (default `lacuna-<figure>-<n>`, unique within one module instance). */
+  idPrefix?: string;
 }
 
 /** A Bloch state picked on the bands figure, as drawn on the sheet and the zone. */
@@ -43,6 +45,8 @@ export interface SelectedState {
   phase: Float64Array;
   /** σ share of the state. */
   sigma: number;
+  /** Name of the parameter set the state was computed with (shown on the sheet figure). */
+  parameters?: string;
 }
 
 /** The bands on the automatic path, in an order where each band is one continuous curve when possible. */

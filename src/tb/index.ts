@@ -19,3 +19,5 @@ export * from './ranking.ts';
 export * from './gapCheck.ts';
 export * from './sigmaBondingRefine.ts';
 export * from './dosInterpolated.ts';
+export * from './zone.ts';
+export * from './blochState.ts';

@@ -1,0 +1,107 @@
+/**
+ * `lacuna plot`: one figure of a sheet — the sheet, its bands, its DOS or its Brillouin zone — drawn in the
+ * publication look by the same figure code as the web view (src/figures), written as SVG and/or PNG.
+ */
+import { invalid } from '../../io/invalid.ts';
+import { bandsFigure } from '../../figures/bands.ts';
+import { dosFigure } from '../../figures/dos.ts';
+import { prepareSheet, prepareSpectra } from '../../figures/prepare.ts';
+import { svgText } from '../../figures/serialize.ts';
+import { sheetFigure } from '../../figures/sheet.ts';
+import { zoneFigure } from '../../figures/zone.ts';
+import type { SpectraData } from '../../figures/types.ts';
+import { parseArgs, type CommandSpec } from '../args.ts';
+import { DOPING_FLAG, JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, OVERWRITE_FLAG, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
+import { checkOutputPath, writeNamedFile, type Command, type CliIo } from '../io.ts';
+import { MESH_WORK, buildModel, resolveParameters } from '../parameters.ts';
+import { ProgressLine } from '../progress.ts';
+import { rasterise } from '../raster.ts';
+import { resolveSheet } from '../sheetArgument.ts';
+
+export const FIGURES = ['sheet', 'bands', 'dos', 'zone'] as const;
+export type FigureName = (typeof FIGURES)[number];
+
+/** Pixels per SVG unit in the PNG (2: sharp on paper and on high-density screens). */
+export const PNG_SCALE = 2;
+
+const spec: CommandSpec = {
+  name: 'plot',
+  summary: 'draw one figure of a sheet (sheet, bands, dos or zone) in the publication look, as SVG and/or PNG',
+  positionals: [SHEET_ARGUMENT],
+  flags: {
+    figure: { kind: 'choice', values: FIGURES, placeholder: FIGURES.join('|'), help: 'which figure (required)' },
+    svg: { kind: 'text', placeholder: 'FILE', help: 'write the figure as SVG' },
+    png: { kind: 'text', placeholder: 'FILE', help: `write the figure as PNG (${PNG_SCALE} pixels per SVG unit; fonts shipped, none needed on the system)` },
+    params: PARAMS_FLAG,
+    doping: DOPING_FLAG,
+    mesh: MESH_FLAG,
+    smearing: SMEARING_FLAG,
+    points: { kind: 'integer', min: 10, max: 5000, placeholder: 'P', help: 'points on the automatic k-path (default 300)' },
+    repeats: { kind: 'integer', min: 1, max: 20, placeholder: 'n', help: 'copies of the cell along each cell vector in the sheet figure (default 3)' },
+    overwrite: OVERWRITE_FLAG,
+    json: JSON_FLAG,
+  },
+};
+
+async function run(argv: readonly string[], io: CliIo): Promise<number> {
+  const { positionals, flags } = parseArgs(spec, argv);
+  const figure = flags.figure as FigureName | undefined;
+  if (figure === undefined) invalid('--figure', undefined, `required: one of ${FIGURES.join(', ')}`);
+  const svgPath = flags.svg as string | undefined;
+  const pngPath = flags.png as string | undefined;
+  if (svgPath === undefined && pngPath === undefined) invalid('--svg', undefined, 'give --svg FILE, --png FILE or both');
+  if (svgPath !== undefined && svgPath === pngPath) invalid('--png', pngPath, 'the same file as --svg');
+  checkOutputPath(io, '--svg', svgPath, flags.overwrite === true);
+  checkOutputPath(io, '--png', pngPath, flags.overwrite === true);
+  if (figure === 'sheet') {
+    for (const flag of ['doping', 'mesh', 'smearing', 'points'] as const) {
+      if (flags[flag] !== undefined) invalid(`--${flag}`, flags[flag], 'not used by the sheet figure');
+    }
+  } else if (flags.repeats !== undefined) {
+    invalid('--repeats', flags.repeats, 'only for --figure sheet');
+  }
+
+  const source = resolveSheet(positionals.SHEET, io);
+  const params = resolveParameters(flags.params as string | undefined, io);
+  const repeats = (flags.repeats as number | undefined) ?? 3;
+  const sheetData = prepareSheet({ label: source.label, sheet: source.sheet, pattern: source.pattern }, { bondCutoff: params.cutoff, repeats: [repeats, repeats] });
+  // Loaded here, not at start-up: no other command pays for the DOM.
+  const { headlessDocument } = await import('../../figures/headless.ts');
+  const document = headlessDocument();
+  const options = { document, style: 'publication' as const };
+  let spectra: SpectraData | undefined;
+  let svg: SVGSVGElement;
+  if (figure === 'sheet') {
+    svg = sheetFigure(sheetData, options);
+  } else {
+    // The smallest cell of a pattern (what the sheet figure's states refer to), after the work guard.
+    buildModel({ label: source.label, sheet: sheetData.sheet }, params, io, MESH_WORK(flags));
+    const progress = new ProgressLine(io.err, 'k-points');
+    spectra = prepareSpectra(sheetData.sheet, params, {
+      label: source.label,
+      doping: flags.doping as number | undefined,
+      mesh: flags.mesh as number | undefined,
+      smearing: flags.smearing as number | undefined,
+      pathPoints: flags.points as number | undefined,
+      onProgress: (done, total) => progress.update(done, done / total),
+    });
+    progress.done();
+    svg = figure === 'bands' ? bandsFigure(spectra, options) : figure === 'dos' ? dosFigure(spectra, options) : zoneFigure(spectra, options);
+  }
+  const text = svgText(svg);
+  if (svgPath !== undefined) writeNamedFile(io, '--svg', svgPath, text);
+  if (pngPath !== undefined) writeNamedFile(io, '--png', pngPath, await rasterise(text, PNG_SCALE));
+  const fermi = spectra ? spectra.fermi : null;
+  if (flags.json) {
+    io.out(`${JSON.stringify({ svg: svgPath ?? null, png: pngPath ?? null, figure, fermi, sheet: source.label, parameters: params.name })}\n`);
+    return 0;
+  }
+  for (const path of [svgPath, pngPath]) if (path !== undefined) io.out(`wrote ${path}\n`);
+  if (spectra) {
+    io.out(`${source.label}: ${figure} figure, parameters ${params.name}, δ = ${spectra.doping} e/atom, E_F ${spectra.fermi.toFixed(4)} eV (${spectra.mesh}×${spectra.mesh} mesh, σ = ${spectra.smearing} eV)\n`);
+    io.out(`${MODEL_CAVEAT}\n`);
+  }
+  return 0;
+}
+
+export const plotCommand: Command = { spec, run };

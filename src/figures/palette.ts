@@ -1,0 +1,45 @@
+/**
+ * Colours of the figures, chosen by us.
+ *
+ * σ and π: a deep blue and an amber. They lie on opposite ends of the blue–yellow axis, which protanopes and
+ * deuteranopes keep, and differ by more than 25 in CIELAB lightness L*, which tritanopes and greyscale prints
+ * keep (checked in test/figures/palette.test.ts). Mixed states of buckled sheets blend the two in CIELAB, so a
+ * half-and-half state is a neutral grey-violet of middle lightness, never a third hue.
+ * Phase: a cyclic hue circle at constant CIELAB lightness and chroma (HCL), so no phase looks brighter than another
+ * and −π meets π without a seam.
+ */
+import { hcl, interpolateLab } from 'd3';
+
+/** σ states (s, px, py). */
+export const SIGMA_COLOUR = '#1f5aa6';
+/** π states (pz). */
+export const PI_COLOUR = '#e39b17';
+export const INK = '#1d232b';
+export const MUTED = '#6b7480';
+export const GRID = '#d5d9de';
+export const FERMI_COLOUR = '#b3261e';
+export const OCCUPIED_FILL = '#cfd5dd';
+export const ATOM_FILL = '#4a5563';
+export const BOND_COLOUR = '#9aa3ad';
+export const HOLE_FILL = '#f4e3b5';
+export const TOTAL_COLOUR = INK;
+/** Opacity of empty states (above E_F). */
+export const EMPTY_OPACITY = 0.3;
+
+const blend = interpolateLab(PI_COLOUR, SIGMA_COLOUR);
+
+/** Colour of a state with σ share w ∈ [0, 1]: π colour at 0, σ colour at 1, a CIELAB blend between. */
+export function shareColour(w: number): string {
+  if (w >= 1) return SIGMA_COLOUR;
+  if (!(w > 0)) return PI_COLOUR;
+  return blend(w);
+}
+
+/** Hue offset (degrees) so that phase 0 is a blue-green, clear of the σ/π colours' meaning. */
+const PHASE_HUE_OFFSET = 200;
+
+/** Colour of a phase (radians), cyclic with period 2π, at constant lightness 62 and chroma 48. */
+export function phaseColour(phase: number): string {
+  const degrees = (phase * 180) / Math.PI + PHASE_HUE_OFFSET;
+  return hcl(((degrees % 360) + 360) % 360, 48, 62).formatHex();
+}

@@ -1,0 +1,91 @@
+import { describe, expect, it } from 'vitest';
+import { runCli } from '../../src/cli/run.ts';
+import { PNG_SCALE } from '../../src/cli/commands/plot.ts';
+import { bandsFigure } from '../../src/figures/bands.ts';
+import { headlessDocument } from '../../src/figures/headless.ts';
+import { prepareSheet, prepareSpectra } from '../../src/figures/prepare.ts';
+import { svgText } from '../../src/figures/serialize.ts';
+import { sheetFigure } from '../../src/figures/sheet.ts';
+import { findSheetPreset } from '../../src/lattice/presets.ts';
+import { findParameterPreset } from '../../src/tb/params.ts';
+import { fakeIo } from './fakeIo.ts';
+
+async function cli(argv: string[], files: Record<string, string> = {}) {
+  const io = fakeIo(files);
+  const code = await runCli(argv, io);
+  return { code, stdout: io.stdout(), stderr: io.stderr(), files: io.files };
+}
+
+const PARAMS = findParameterPreset('harrison1980')!;
+
+/** The figure code's own output, with ids as the CLI's first figure in a fresh module would have them. */
+function sameIds(text: string): string {
+  return text.replace(/lacuna-(\w+)-\d+-/g, 'lacuna-$1-N-');
+}
+
+describe('lacuna plot', () => {
+  it('writes the bands SVG the figure code draws for the same inputs, and prints the contract JSON', async () => {
+    const { code, stdout, files } = await cli(['plot', 'honeycomb', '--figure', 'bands', '--mesh', '8', '--points', '40', '--svg', 'b.svg', '--json']);
+    expect(code).toBe(0);
+    const document = JSON.parse(stdout);
+    const sheet = prepareSheet({ label: 'honeycomb', pattern: findSheetPreset('honeycomb')!.pattern }, { bondCutoff: PARAMS.cutoff });
+    const spectra = prepareSpectra(sheet.sheet, PARAMS, { label: 'honeycomb', mesh: 8, pathPoints: 40 });
+    expect(document).toEqual({ svg: 'b.svg', png: null, figure: 'bands', fermi: spectra.fermi, sheet: 'honeycomb', parameters: 'harrison1980' });
+    const written = String(files.get('b.svg'));
+    const expected = svgText(bandsFigure(spectra, { document: headlessDocument(), style: 'publication' }));
+    expect(sameIds(written)).toBe(sameIds(expected));
+    // It parses as SVG with the contract's attributes.
+    const svg = new DOMParserLike(written);
+    expect(svg.root.getAttribute('data-figure')).toBe('bands');
+    expect(svg.root.querySelector('line[data-fermi]')!.getAttribute('data-fermi')).toBe(String(spectra.fermi));
+  });
+
+  it('E_F of plot equals lacuna fill for the same flags (the page’s contract)', async () => {
+    const fill = JSON.parse((await cli(['fill', 'alpha', '--mesh', '10', '--doping', '0.1', '--json'])).stdout);
+    const plot = JSON.parse((await cli(['plot', 'alpha', '--figure', 'zone', '--mesh', '10', '--doping', '0.1', '--svg', 'z.svg', '--json'])).stdout);
+    expect(plot.fermi).toBe(fill.fermi);
+  });
+
+  it('writes a PNG with the PNG signature at PNG_SCALE × the figure size', async () => {
+    const { code, files } = await cli(['plot', 'alpha', '--figure', 'sheet', '--repeats', '2', '--png', 's.png', '--svg', 's.svg']);
+    expect(code).toBe(0);
+    const png = files.get('s.png') as Uint8Array;
+    // PNG signature and IHDR width/height, big-endian at bytes 16–23 (PNG specification, ISO/IEC 15948).
+    expect([...png.subarray(0, 8)]).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
+    const view = new DataView(png.buffer, png.byteOffset, png.byteLength);
+    expect(view.getUint32(16)).toBe(560 * PNG_SCALE);
+    expect(view.getUint32(20)).toBe(560 * PNG_SCALE);
+    const sheet = prepareSheet({ label: 'alpha', pattern: findSheetPreset('alpha')!.pattern }, { bondCutoff: PARAMS.cutoff, repeats: [2, 2] });
+    expect(sameIds(String(files.get('s.svg')))).toBe(sameIds(svgText(sheetFigure(sheet, { document: headlessDocument(), style: 'publication' }))));
+  });
+
+  it('never replaces a file without --overwrite, and refuses missing or misplaced flags in the error form', async () => {
+    const refused = async (argv: string[], pattern: RegExp, files: Record<string, string> = {}) => {
+      const result = await cli(argv, files);
+      expect(result.code).toBe(2);
+      expect(result.stdout).toBe('');
+      expect(result.stderr).toMatch(/^invalid [^\n]+\n$/);
+      expect(result.stderr).toMatch(pattern);
+    };
+    await refused(['plot', 'alpha', '--figure', 'dos', '--svg', 'x.svg'], /^invalid --svg: "x.svg" \(the file exists; add --overwrite/, { 'x.svg': 'old' });
+    await refused(['plot', 'alpha', '--svg', 'x.svg'], /^invalid --figure: missing \(required/);
+    await refused(['plot', 'alpha', '--figure', 'dos'], /^invalid --svg: missing \(give --svg FILE, --png FILE or both\)/);
+    await refused(['plot', 'alpha', '--figure', 'graph', '--svg', 'x.svg'], /^invalid --figure: "graph"/);
+    await refused(['plot', 'alpha', '--figure', 'sheet', '--mesh', '4', '--svg', 'x.svg'], /^invalid --mesh: 4 \(not used by the sheet figure\)/);
+    await refused(['plot', 'alpha', '--figure', 'bands', '--repeats', '2', '--svg', 'x.svg'], /^invalid --repeats: 2 \(only for --figure sheet\)/);
+    const replaced = await cli(['plot', 'alpha', '--figure', 'sheet', '--svg', 'x.svg', '--overwrite'], { 'x.svg': 'old' });
+    expect(replaced.code).toBe(0);
+    expect(String(replaced.files.get('x.svg'))).toMatch(/^<\?xml/);
+  });
+});
+
+/** Parses SVG text with the headless document's parser (linkedom's XML mode). */
+class DOMParserLike {
+  readonly root: Element;
+  constructor(text: string) {
+    const { DOMParser } = (headlessDocument().defaultView ?? {}) as { DOMParser?: new () => DOMParser };
+    if (!DOMParser) throw new Error('no DOMParser');
+    const parsed = new DOMParser().parseFromString(text.replace(/^<\?xml[^>]*>\n/, ''), 'image/svg+xml');
+    this.root = parsed.documentElement;
+  }
+}
