@@ -259,7 +259,7 @@ export class App {
   }
 
   /** E_F at the counting rule's doping, when that doping is a legal count (3 + δ in (0, 8)). */
-  private ruleEnergy(): number | undefined {
+  ruleEnergy(): number | undefined {
     const doping = countingRuleDoping(this.resolved.eta);
     if (!this.solver || !(3 + doping > 0 && 3 + doping < 8)) return undefined;
     return this.solver.solve(3 + doping, this.state.smearing).fermi;

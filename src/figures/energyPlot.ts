@@ -55,9 +55,14 @@ export function drawFermi(frame: Frame, plot: Group, width: number, height: numb
   const defs = plot.append('defs');
   defs.append('clipPath').attr('id', occupied).append('rect').attr('data-clip', 'occupied').attr('x', 0).attr('width', width);
   defs.append('clipPath').attr('id', empty).append('rect').attr('data-clip', 'empty').attr('x', 0).attr('y', 0).attr('width', width);
+  // Where the counting rule's electrons would put E_F: hidden until setRule gives it an energy.
+  const rule = plot.append('g').attr('data-layer', 'rule').attr('visibility', 'hidden');
+  rule.append('line').attr('data-rule', '').attr('x1', 0).attr('x2', width)
+    .attr('stroke', MUTED).attr('stroke-width', 1.2).attr('stroke-dasharray', '2 3');
+  rule.append('text').attr('data-rule-label', '').attr('x', 3).attr('font-size', frame.look.tick).attr('fill', MUTED).text('rule');
   const marker = plot.append('g').attr('data-layer', 'fermi');
   marker.append('line').attr('data-fermi', String(fermi)).attr('x1', 0).attr('x2', width)
-    .attr('stroke', FERMI_COLOUR).attr('stroke-width', 1.2).attr('stroke-dasharray', '6 3');
+    .attr('stroke', FERMI_COLOUR).attr('stroke-width', 1.4);
   const label = marker.append('text').attr('data-fermi-label', '').attr('x', width - 3).attr('text-anchor', 'end')
     .attr('font-size', frame.look.tick).attr('fill', FERMI_COLOUR).text('E');
   label.append('tspan').attr('dy', 3).attr('font-size', frame.look.tick * 0.75).text('F');
@@ -97,6 +102,30 @@ export function setFermi(svg: SVGSVGElement | Element, fermi: number): void {
   const y = readLinear(svg, 'energy-scale');
   if (!y) throw new TypeError('invalid svg: not a bands or DOS figure (no data-energy-scale)');
   placeFermi(svg, fermi, y(fermi), y.range[0]);
+}
+
+/**
+ * Shows a second, dotted line where E_F would sit with the counting rule's doping δ = 8/(3(1 − η)) − 3 (the
+ * energy that just fills the σ bonding states by the rule), or hides it (null or outside the plot).
+ */
+export function setRule(svg: SVGSVGElement | Element, energy: number | null): void {
+  const y = readLinear(svg, 'energy-scale');
+  if (!y) throw new TypeError('invalid svg: not a bands or DOS figure (no data-energy-scale)');
+  const group = svg.querySelector('g[data-layer="rule"]');
+  const line = svg.querySelector('line[data-rule]');
+  const label = svg.querySelector('text[data-rule-label]');
+  if (!group || !line || !label) return;
+  const py = energy === null ? NaN : y(energy);
+  const inside = py >= 0 && py <= y.range[0];
+  group.setAttribute('visibility', inside ? 'visible' : 'hidden');
+  if (!inside) {
+    line.setAttribute('data-rule', '');
+    return;
+  }
+  line.setAttribute('data-rule', String(energy));
+  line.setAttribute('y1', String(py));
+  line.setAttribute('y2', String(py));
+  label.setAttribute('y', String(py - 3));
 }
 
 /** A legend row of swatches at (x, y): each entry a short line (or box) and its label. */

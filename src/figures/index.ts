@@ -5,7 +5,7 @@ export { bandsFigure, bandsPick, bandsScales, setSelected, spectraEnergyRange, t
 export { dosFigure, type DosOptions } from './dos.ts';
 export { zoneFigure, setZoneMarker, type ZoneOptions } from './zone.ts';
 export { sheetFigure, type SheetOptions } from './sheet.ts';
-export { setFermi } from './energyPlot.ts';
+export { setFermi, setRule } from './energyPlot.ts';
 export { svgText, serializeFigure } from './serialize.ts';
 export { SIGMA_COLOUR, PI_COLOUR, shareColour, phaseColour } from './palette.ts';
 export { FONT_FAMILY } from './look.ts';

@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { bandsFigure, bandsPick, setSelected } from '../../src/figures/bands.ts';
 import { dosFigure } from '../../src/figures/dos.ts';
-import { setFermi } from '../../src/figures/energyPlot.ts';
+import { setFermi, setRule } from '../../src/figures/energyPlot.ts';
+import { fillSpectrum } from '../../src/tb/fill.ts';
+import { countingRuleDoping } from '../../src/tb/countingRule.ts';
 import { prepareSheet, prepareState } from '../../src/figures/prepare.ts';
 import { svgText } from '../../src/figures/serialize.ts';
 import { sheetFigure } from '../../src/figures/sheet.ts';
@@ -26,6 +28,23 @@ describe('bandsFigure(data, options)', () => {
     const lines = svg.querySelectorAll('[data-fermi]');
     expect(lines.length).toBe(1);
     expect(lines[0].getAttribute('data-fermi')).toBe(String(alpha.spectra.fermi));
+  });
+
+  it('setRule draws the E_F of the counting rule\u2019s doping; for α (η = 1/9, δ = 0) it is the neutral E_F', () => {
+    // The counting rule puts the neutral α sheet exactly at σ filling: δ(1/9) = 8/(3·8/9) − 3 = 0 (common practice).
+    expect(countingRuleDoping(1 / 9)).toBeCloseTo(0, 14);
+    const rule = fillSpectrum(alpha.spectra.spectrum, { doping: countingRuleDoping(1 / 9), smearing: alpha.spectra.smearing }).fermi;
+    for (const svg of [bandsFigure(alpha.spectra, { document }), dosFigure(alpha.spectra, { document })]) {
+      const group = svg.querySelector('g[data-layer="rule"]')!;
+      expect(group.getAttribute('visibility')).toBe('hidden');
+      setRule(svg, rule);
+      expect(group.getAttribute('visibility')).toBe('visible');
+      const line = svg.querySelector('line[data-rule]')!;
+      expect(Number(line.getAttribute('data-rule'))).toBeCloseTo(alpha.spectra.fermi, 12);
+      expect(Number(line.getAttribute('y1'))).toBeCloseTo(Number(svg.querySelector('line[data-fermi]')!.getAttribute('y1')), 9);
+      setRule(svg, null);
+      expect(group.getAttribute('visibility')).toBe('hidden');
+    }
   });
 
   it('setFermi moves the line, its attribute and the occupied/empty clips without re-rendering', () => {

@@ -33,7 +33,7 @@ export function drawCountBox(host: HTMLElement, figures: CountFigures): void {
   rows.push(['hole density η', `${figures.eta.toFixed(4)}${figures.etaEstimated ? ' (estimate)' : ''}${holes}`]);
   rows.push(['atoms per cell', String(figures.atoms)]);
   rows.push(['counting rule asks δ', `${signed(figures.ruleDoping)} e/atom`, 'δ = 8/(3(1 − η)) − 3: the classic estimate of the doping that just fills the σ bonding states']);
-  if (figures.ruleEnergy !== undefined) rows.push(['E_F at the rule\u2019s δ', `${figures.ruleEnergy.toFixed(3)} eV`, 'the dashed line on the bands and DOS']);
+  if (figures.ruleEnergy !== undefined) rows.push(['E_F at the rule\u2019s δ', `${figures.ruleEnergy.toFixed(3)} eV`, 'the dotted line marked “rule” on the bands and DOS']);
   const bonding = figures.bonding;
   if (bonding) {
     const where = bonding.gap ? `gap ${bonding.gap.lower.toFixed(2)} … ${bonding.gap.upper.toFixed(2)} eV` : `pseudogap at ${bonding.energy.toFixed(2)} eV`;

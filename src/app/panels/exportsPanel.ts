@@ -6,6 +6,7 @@
  */
 import { bandsFigure } from '../../figures/bands.ts';
 import { dosFigure } from '../../figures/dos.ts';
+import { setRule } from '../../figures/energyPlot.ts';
 import { sheetFigure } from '../../figures/sheet.ts';
 import { zoneFigure } from '../../figures/zone.ts';
 import { parseCifText } from '../../io/cifRead.ts';
@@ -34,8 +35,17 @@ export function publicationFigure(app: App, doc: Document, figure: string): SVGS
   if (figure === 'sheet') return sheetFigure(app.sheetData(), options);
   if (!spectra) return undefined;
   const energyRange = SpectrumView.energyRange(spectra, app.energyWindow.low, app.energyWindow.high);
-  if (figure === 'bands') return bandsFigure(spectra, { ...options, energyRange, selected: app.selected ? app.state.pick : undefined });
-  if (figure === 'dos') return dosFigure(spectra, { ...options, energyRange });
+  const rule = app.ruleEnergy() ?? null;
+  if (figure === 'bands') {
+    const svg = bandsFigure(spectra, { ...options, energyRange, selected: app.selected ? app.state.pick : undefined });
+    setRule(svg, rule);
+    return svg;
+  }
+  if (figure === 'dos') {
+    const svg = dosFigure(spectra, { ...options, energyRange });
+    setRule(svg, rule);
+    return svg;
+  }
   return zoneFigure(spectra, options);
 }
 

@@ -5,7 +5,7 @@
  */
 import { bandsFigure, bandsPick } from '../../figures/bands.ts';
 import { dosFigure } from '../../figures/dos.ts';
-import { setFermi } from '../../figures/energyPlot.ts';
+import { setFermi, setRule } from '../../figures/energyPlot.ts';
 import { zoneFigure } from '../../figures/zone.ts';
 import type { SpectraData } from '../../figures/types.ts';
 
@@ -67,7 +67,7 @@ export class SpectrumView {
     this.hosts.bands.replaceChildren(this.bandsSvg, this.tooltip);
     this.hosts.dos.replaceChildren(this.dosSvg);
     this.hosts.zone.replaceChildren(this.zoneSvg);
-    if (options.ruleEnergy !== undefined) this.setRule(options.ruleEnergy);
+    this.setRule(options.ruleEnergy);
     this.attach(this.bandsSvg);
   }
 
@@ -78,8 +78,10 @@ export class SpectrumView {
     if (this.dosSvg) setFermi(this.dosSvg, fermi);
   }
 
-  setRule(energy: number): void {
-    void energy;
+  /** The dotted line where the counting rule's doping would put E_F (bands and DOS). */
+  setRule(energy: number | undefined): void {
+    if (this.bandsSvg) setRule(this.bandsSvg, energy ?? null);
+    if (this.dosSvg) setRule(this.dosSvg, energy ?? null);
   }
 
   private attach(svg: SVGSVGElement): void {
