@@ -10,7 +10,7 @@ import type { Vec2 } from '../lattice/sheet.ts';
 import { drawCaption, figureFrame } from './frame.ts';
 import { formatFraction, formatNumber } from './format.ts';
 import { ATOM_FILL, BOND_COLOUR, GRID, HOLE_FILL, INK, MUTED, SIGMA_COLOUR, phaseColour } from './palette.ts';
-import { editedCell, placeSites, placedBonds } from './sheetLayout.ts';
+import { copyBasis, editedCell, placeSites, placedBonds } from './sheetLayout.ts';
 import type { FigureOptions, SheetData } from './types.ts';
 
 export type SheetOptions = FigureOptions;
@@ -86,11 +86,14 @@ export function sheetFigure(data: SheetData, options: SheetOptions): SVGSVGEleme
     return p.map((q) => `${X(q[0])},${Y(q[1])}`).join(' ');
   };
   const cells = content.append('g').attr('data-layer', 'cells').attr('fill', 'none');
+  // Copies are laid along the reduced vectors of the edited cell's lattice (compact for any HNF); for an explicit
+  // sheet along its own cell vectors, and then the first copy is the edited cell itself.
+  const [C1, C2] = data.pattern ? copyBasis(data).cartesian : [A1, A2];
   for (let n2 = 0; n2 < data.repeats[1]; n2++) {
     for (let n1 = 0; n1 < data.repeats[0]; n1++) {
-      if (n1 === 0 && n2 === 0) continue;
-      const o: Vec2 = [n1 * A1[0] + n2 * A2[0], n1 * A1[1] + n2 * A2[1]];
-      cells.append('polygon').attr('data-cell', `${n1},${n2}`).attr('points', cellPath(o, A1, A2)).attr('stroke', GRID).attr('stroke-width', 1);
+      if (!data.pattern && n1 === 0 && n2 === 0) continue;
+      const o: Vec2 = [n1 * C1[0] + n2 * C2[0], n1 * C1[1] + n2 * C2[1]];
+      cells.append('polygon').attr('data-cell', `${n1},${n2}`).attr('points', cellPath(o, C1, C2)).attr('stroke', GRID).attr('stroke-width', 1);
     }
   }
 

@@ -5,6 +5,7 @@
  */
 import { reduceSite } from '../lattice/hnf.ts';
 import { cartesian, type Vec2 } from '../lattice/sheet.ts';
+import { gaussReduce } from '../lattice/reduce.ts';
 import { latticePoint } from '../lattice/triangular.ts';
 import type { SheetData } from './types.ts';
 
@@ -29,6 +30,25 @@ export function editedCell(data: SheetData): [Vec2, Vec2] {
   if (!data.pattern) return [data.sheet.cell[0], data.sheet.cell[1]];
   const { a, b, c } = data.pattern.supercell;
   return [latticePoint(a, 0, data.pattern.bond), latticePoint(b, c, data.pattern.bond)];
+}
+
+/**
+ * The vectors along which copies are laid: the Gauss-reduced basis of the edited cell's lattice (same lattice,
+ * shortest vectors, counter-clockwise), so a long, sheared HNF cell still fills a compact patch of sheet. For a
+ * pattern also in integer lattice coordinates.
+ */
+export function copyBasis(data: SheetData): { cartesian: [Vec2, Vec2]; lattice?: [[number, number], [number, number]] } {
+  const [A1, A2] = editedCell(data);
+  const { u, v, transform: t } = gaussReduce(A1, A2);
+  // Counter-clockwise (positive area), so the parallelogram test below needs one sign only.
+  const flip = u[0] * v[1] - u[1] * v[0] < 0 ? -1 : 1;
+  const cartesianBasis: [Vec2, Vec2] = [u, [flip * v[0], flip * v[1]]];
+  if (!data.pattern) return { cartesian: cartesianBasis };
+  const { a, b, c } = data.pattern.supercell;
+  // Rows of the HNF in (i, j): A1 = (a, 0), A2 = (b, c); u = t0·A1 + t1·A2, v = t2·A1 + t3·A2.
+  const U: [number, number] = [t[0] * a + t[1] * b, t[1] * c];
+  const V: [number, number] = [flip * (t[2] * a + t[3] * b), flip * t[3] * c];
+  return { cartesian: cartesianBasis, lattice: [U, V] };
 }
 
 export function placeSites(data: SheetData): PlacedSite[] {
@@ -59,15 +79,19 @@ export function placeSites(data: SheetData): PlacedSite[] {
   const atomOf = new Int32Array(h.a * h.c).fill(-1);
   let next = 0;
   for (let j = 0; j < h.c; j++) for (let i = 0; i < h.a; i++) if (!cellVacant.has(j * h.a + i)) atomOf[j * h.a + i] = next++;
+  const [[u1, u2], [v1, v2]] = copyBasis(data).lattice!;
+  const area = u1 * v2 - u2 * v1; // = a·c > 0
   for (let n2 = 0; n2 < r2; n2++) {
     for (let n1 = 0; n1 < r1; n1++) {
       for (let j = 0; j < c; j++) {
         for (let i = 0; i < a; i++) {
-          // The representative of (i, j) inside the parallelogram of A1, A2: fraction along A1 is (i·c − j·b)/(a·c),
-          // so shift i by a·floor of it (exact in integers), then translate the copy by n1·A1 + n2·A2.
-          const inside = i - a * Math.floor((i * c - j * b) / (a * c));
-          const I = inside + n1 * a + n2 * b;
-          const J = j + n2 * c;
+          // The representative of (i, j) inside the parallelogram of the reduced vectors U, V: its coordinates
+          // there are ((i·v2 − j·v1)/area, (u1·j − u2·i)/area); subtract their floors (exact in integers), then
+          // translate the copy by n1·U + n2·V.
+          const fu = Math.floor((i * v2 - j * v1) / area);
+          const fv = Math.floor((u1 * j - u2 * i) / area);
+          const I = i - fu * u1 - fv * v1 + n1 * u1 + n2 * v1;
+          const J = j - fu * u2 - fv * v2 + n1 * u2 + n2 * v2;
           const [x, y] = latticePoint(I, J, pattern.bond);
           if (vacant.has(j * a + i)) {
             out.push({ site: [I, J], x, y, z: 0, atom: -1, rx: 0, ry: 0, hexagonal: hexagonal.has(j * a + i) });
