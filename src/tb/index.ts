@@ -16,3 +16,4 @@ export * from './dosTriangle.ts';
 export * from './countingRule.ts';
 export * from './sigmaBonding.ts';
 export * from './ranking.ts';
+export * from './meshDensity.ts';

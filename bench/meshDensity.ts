@@ -1,0 +1,55 @@
+/**
+ * The k-point density rule (src/tb/meshDensity.ts) on the ranking it was made for: `rank --sites 1-20 --holes 1-2
+ * --isolated` at the default k-spacing against the same ranking at mesh 36 for every cell (what rank did before).
+ * Prints both times and the largest difference of band energy per atom; the targets (≤ 5 s, ≤ 1e-3 eV/atom) are
+ * stated beside the figures, never asserted.
+ */
+import { enumerateStructures } from '../src/enumerate/index.ts';
+import { DEFAULT_KSPACING, DEFAULT_PARAMETERS, findParameterPreset, rankByBandEnergy, type RankingResult } from '../src/tb/index.ts';
+import type { Pattern } from '../src/lattice/sheet.ts';
+
+function patterns(): { name: string; pattern: Pattern }[] {
+  const list: { name: string; pattern: Pattern }[] = [];
+  for (const s of enumerateStructures({ sites: [1, 20], holes: [1, 2], isolated: true })) {
+    if (s.sites === s.holes) continue;
+    list.push({ name: s.canonical, pattern: s.pattern });
+  }
+  return list;
+}
+
+function energies(result: RankingResult): Map<string, { energy: number; mesh: number }> {
+  const map = new Map<string, { energy: number; mesh: number }>();
+  for (const g of result.groups) for (const p of g.patterns) map.set(p.name, { energy: p.bandEnergyPerAtom, mesh: p.mesh });
+  return map;
+}
+
+export async function benchMeshDensity(spacings: number[] = [DEFAULT_KSPACING]): Promise<void> {
+  const params = findParameterPreset(DEFAULT_PARAMETERS)!;
+  const list = patterns();
+  let started = performance.now();
+  const reference = energies(rankByBandEnergy(list, params, { mesh: 36 }));
+  const referenceSeconds = (performance.now() - started) / 1000;
+  console.log(`rank --sites 1-20 --holes 1-2 --isolated: ${list.length} patterns`);
+  console.log(`  mesh 36 on every cell           ${referenceSeconds.toFixed(1)} s`);
+  for (const spacing of spacings) {
+    started = performance.now();
+    const dense = energies(rankByBandEnergy(list, params, { kspacing: spacing }));
+    const seconds = (performance.now() - started) / 1000;
+    let worst = 0;
+    let where = '';
+    let meshes = [Infinity, 0];
+    for (const [name, r] of reference) {
+      const d = dense.get(name)!;
+      const diff = Math.abs(d.energy - r.energy);
+      if (diff > worst) [worst, where] = [diff, `${name} (mesh ${d.mesh})`];
+      meshes = [Math.min(meshes[0], d.mesh), Math.max(meshes[1], d.mesh)];
+    }
+    console.log(`  k-spacing ${spacing} Å⁻¹ (meshes ${meshes[0]}–${meshes[1]})  ${seconds.toFixed(1)} s (target ≤ 5 s); largest band-energy difference ${worst.toExponential(2)} eV/atom (target ≤ 1e-3) at ${where}`);
+  }
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+  // `npx tsx bench/meshDensity.ts 0.08 0.06` compares other spacings too.
+  const given = process.argv.slice(2).map(Number).filter((x) => x > 0);
+  await benchMeshDensity(given.length ? given : undefined);
+}
