@@ -6,22 +6,22 @@ import { estimateHoleDensity } from '../../lattice/geometry.ts';
 import { holeDensity } from '../../lattice/pattern.ts';
 import { fillSpectrum, sigmaBonding } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
-import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
+import { JSON_FLAG, KSPACING_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG, PROGRESS_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
-import { resolveSpectrum } from '../parameters.ts';
+import { meshJson, resolveSpectrum } from '../parameters.ts';
 
 const spec: CommandSpec = {
   name: 'bonding',
   summary: 'σ bonding states of a sheet — capacity and the doping that fills them — beside the electron-counting rule',
   positionals: [SHEET_ARGUMENT],
-  flags: { params: PARAMS_FLAG, mesh: MESH_FLAG, smearing: SMEARING_FLAG, json: JSON_FLAG },
+  flags: { params: PARAMS_FLAG, mesh: MESH_FLAG, kspacing: KSPACING_FLAG, smearing: SMEARING_FLAG, json: JSON_FLAG, progress: PROGRESS_FLAG },
 };
 
 const RULE_NOTE = 'counting rule δ = 8/(3(1 − η)) − 3: the classic estimate of the doping that just fills the in-plane σ bonding states; a rule of thumb, not a result';
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  const { sheet, model, spectrum, smearing } = resolveSpectrum(positionals.SHEET, flags, io);
+  const { sheet, model, spectrum, smearing, meshChoice } = resolveSpectrum(positionals.SHEET, flags, io, 'bonding');
   const estimate = sheet.pattern ? undefined : estimateHoleDensity(sheet.sheet);
   const eta = sheet.pattern ? holeDensity(sheet.pattern) : estimate!.eta;
   const analysis = sigmaBonding(spectrum, { holeDensity: eta, holeDensityEstimated: estimate !== undefined && !estimate.exact, smearing });
@@ -30,10 +30,10 @@ function run(argv: readonly string[], io: CliIo): number {
     const document: Record<string, unknown> = {
       sheet: sheet.label,
       parameters: analysis.parameters,
-      mesh: analysis.mesh,
+      ...meshJson(meshChoice),
       smearing: analysis.smearing,
-      hole_density: eta,
-      hole_density_estimated: analysis.countingRule.estimated,
+      eta,
+      eta_estimated: analysis.countingRule.estimated,
       counting_rule: { doping: analysis.countingRule.doping, note: RULE_NOTE },
       sigma_filling: {
         kind: analysis.kind,
@@ -54,7 +54,7 @@ function run(argv: readonly string[], io: CliIo): number {
     ? `σ gap ${analysis.gap.lower.toFixed(3)} … ${analysis.gap.upper.toFixed(3)} eV (E* = ${analysis.energy.toFixed(3)}, mid-gap)`
     : `σ pseudogap at E* = ${analysis.energy.toFixed(3)} eV (σ DOS ${analysis.sigmaDos.toFixed(4)} states/eV/atom)`;
   const lines = [
-    `${sheet.label}: ${model.atoms} atoms, η = ${eta.toFixed(4)}${analysis.countingRule.estimated ? ' (estimated from the geometry)' : ''}, parameters ${analysis.parameters}, ${analysis.mesh}×${analysis.mesh} mesh, σ = ${analysis.smearing} eV`,
+    `${sheet.label}: ${model.atoms} atoms, η = ${eta.toFixed(4)}${analysis.countingRule.estimated ? ' (estimated from the geometry)' : ''}, parameters ${analysis.parameters}, ${meshChoice.why}, Gaussian width ${analysis.smearing} eV`,
     `  ${where}`,
     `  σ bonding capacity               ${f(analysis.sigmaCapacity)} electrons per atom`,
     `  doping that fills it (to E*)     ${f(analysis.fillingDoping)} e/atom${analysis.fillingRange ? `   (any of ${analysis.fillingRange.lower.toFixed(3)} … ${analysis.fillingRange.upper.toFixed(3)} keeps σ bonding full and σ antibonding empty)` : ''}`,
