@@ -153,6 +153,10 @@ export function parseArgs(spec: CommandSpec, argv: readonly string[]): ParsedArg
         text = argv[++at];
       }
       flags[name] = parseValue(flag, flagSpec, text);
+    } else if (/^-[A-Za-z]/.test(word)) {
+      // A single-dash word is a mistyped option, not a positional argument (a file named so can be given as ./-m).
+      const known = Object.keys(spec.flags).map((f) => `--${f}`).join(', ');
+      invalid(/^-[A-Za-z][\w-]*$/.test(word) ? word : 'option', word, `unknown option for ${spec.name}; options are written --name; known: ${known}`);
     } else {
       given.push(word);
     }

@@ -2,7 +2,7 @@
  * The --params option (a parameter-set preset name or a parameter file, DESIGN.md contract), and the model
  * that it and the SHEET argument make.
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid, namingSource } from '../io/invalid.ts';
 import { parseParameterFile } from '../io/paramsFile.ts';
 import { DEFAULT_PARAMETERS, PARAMETER_PRESETS, findParameterPreset, type ParameterSet } from '../tb/params.ts';
 import { TightBindingModel } from '../tb/model.ts';
@@ -28,7 +28,7 @@ export function resolveParameters(value: string | undefined, io: CliIo): Paramet
     const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such parameter set or file' : 'cannot read the file';
     invalid('--params', name, `${reason}; presets: ${names}`);
   }
-  return parseParameterFile(content, name);
+  return namingSource('the parameter file', name, () => parseParameterFile(content, name));
 }
 
 /** The sheet, the parameter set and the model of a command's SHEET argument and --params flag. */
@@ -68,7 +68,7 @@ export function buildModel(sheet: SheetArgument, params: ParameterSet, io: CliIo
  * `equalDensity` for jobs that compare cells.
  */
 export function meshChoiceOf(flags: Record<string, unknown>, sheet: Pick<Sheet, 'cell' | 'atoms'>, equalDensity = false): MeshChoice {
-  if (flags.mesh !== undefined && flags.kspacing !== undefined) invalid('--kspacing', flags.kspacing, 'give --mesh or --kspacing, not both');
+  if (flags.mesh !== undefined && flags.kspacing !== undefined) invalid('--kspacing', String(flags.kspacing), 'give --mesh or --kspacing, not both');
   return chooseMesh(sheet, { mesh: flags.mesh as number | undefined, kspacing: flags.kspacing as number | undefined, equalDensity });
 }
 

@@ -33,11 +33,11 @@ export function guardSolve(
   cheaper: (v: number) => number = (v) => Math.floor(v / 1.25),
 ): void {
   const atoms = sheet.atoms.length;
-  if (atoms > MAX_MODEL_ATOMS) invalid('SHEET', atoms, `${atoms} atoms per cell; the tight-binding commands take at most ${MAX_MODEL_ATOMS}`);
+  if (atoms > MAX_MODEL_ATOMS) invalid('SHEET', `${atoms} atoms`, `the tight-binding commands take at most ${MAX_MODEL_ATOMS} atoms per cell`);
   const seconds = estimatedSeconds(sheet, kpointsOf(value));
   if (seconds <= MAX_ESTIMATED_SECONDS) return;
   let fits = value;
   for (let tries = 0; tries < 100 && fits > 0 && estimatedSeconds(sheet, kpointsOf(fits)) > MAX_ESTIMATED_SECONDS; tries++) fits = cheaper(fits);
   const hint = fits > 0 && estimatedSeconds(sheet, kpointsOf(fits)) <= MAX_ESTIMATED_SECONDS ? `; ${flag} ${fits} fits in an hour` : '; use a smaller cell';
-  invalid(flag, value, `about ${readableSeconds(seconds)} for ${atoms} atoms per cell${hint}`);
+  invalid(flag, String(value), `about ${readableSeconds(seconds)} for ${atoms} atoms per cell${hint}`);
 }

@@ -198,10 +198,10 @@ describe('tight-binding commands: limits', () => {
     const atoms: number[][] = [];
     for (let i = 0; i < 30; i++) for (let j = 0; j < 30; j++) atoms.push([(i + 0.5) / 60, (j + 0.5) / 60]);
     const sheet = JSON.stringify({ cell: [[60 * 1.69, 0], [30 * 1.69, 30 * 1.69 * Math.sqrt(3)]], atoms });
-    await refused(['fill', 'big.json', '--mesh', '36'], /^invalid --mesh: 36 \(about [\d.]+ h for 900 atoms per cell; --mesh \d+ fits in an hour\)/, { 'big.json': sheet });
+    await refused(['fill', 'big.json', '--mesh', '36'], /^invalid --mesh: "36" \(about [\d.]+ h for 900 atoms per cell; --mesh \d+ fits in an hour\)/, { 'big.json': sheet });
     // A fine spacing is refused against --kspacing, with a coarser spacing that fits.
-    await refused(['fill', 'big.json', '--kspacing', '0.005'], /^invalid --kspacing: 0\.005 \(about [\d.]+ (h|days) for 900 atoms per cell; --kspacing [\d.]+ fits in an hour\)/, { 'big.json': sheet });
-    await refused(['bands', 'big.json', '--path', 'auto'], /^invalid --points: 300 \(about/, { 'big.json': sheet });
+    await refused(['fill', 'big.json', '--kspacing', '0.005'], /^invalid --kspacing: "0\.005" \(about [\d.]+ (min|h|days) for 900 atoms per cell; --kspacing [\d.]+ fits in an hour\)/, { 'big.json': sheet });
+    await refused(['bands', 'big.json', '--path', 'auto'], /^invalid --points: "300" \(about/, { 'big.json': sheet });
   });
 
   it('warns on stderr when no bond lies within the cutoff, and still answers', async () => {

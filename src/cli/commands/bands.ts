@@ -1,7 +1,7 @@
 /**
  * `lacuna bands`: band energies and σ weights on an automatic k-path or on given k-points (DESIGN.md contract).
  */
-import { invalid, ValidationError } from '../../io/invalid.ts';
+import { invalid, namingSource, ValidationError } from '../../io/invalid.ts';
 import { parseKpointsText } from '../../io/kpointsFile.ts';
 import { autoPath, computeBands, type BandResult, type KPath } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
@@ -63,7 +63,7 @@ function run(argv: readonly string[], io: CliIo): number {
   checkOutputPath(io, '--csv', flags.csv as string | undefined, flags.overwrite === true);
   if (flags.kpoints !== undefined && flags.path !== undefined) invalid('--kpoints', flags.kpoints, 'give either --kpoints or --path auto, not both');
   if (flags.kpoints === undefined && flags.path === undefined) invalid('--path', undefined, 'give --path auto or --kpoints FILE');
-  if (flags.points !== undefined && flags.path === undefined) invalid('--points', flags.points, 'only with --path auto');
+  if (flags.points !== undefined && flags.path === undefined) invalid('--points', String(flags.points), 'only with --path auto');
   const sheet = resolveSheet(positionals.SHEET, io);
   const params = resolveParameters(flags.params as string | undefined, io);
 
@@ -86,7 +86,7 @@ function run(argv: readonly string[], io: CliIo): number {
     } catch {
       invalid('--kpoints', file, 'cannot read the file');
     }
-    kpoints = parseKpointsText(text, file);
+    kpoints = namingSource('the k-points file', file, () => parseKpointsText(text, file));
   }
   const count = kpoints.length / 2;
   const model = buildModel(sheet, params, io, { flag: path ? '--points' : '--kpoints', value: count, kpoints: (p) => p });

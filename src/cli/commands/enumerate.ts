@@ -121,7 +121,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const jsonl = flags.jsonl === true;
   if (json && jsonl) invalid('--jsonl', '--jsonl', 'give --json or --jsonl, not both');
   if (jsonl && flags['counts-only']) invalid('--jsonl', '--jsonl', 'lists structures; with --counts-only use --json');
-  if (flags['cell-tolerance'] !== undefined && flags.cell === undefined) invalid('--cell-tolerance', flags['cell-tolerance'], 'only with --cell');
+  if (flags['cell-tolerance'] !== undefined && flags.cell === undefined) invalid('--cell-tolerance', (flags['cell-tolerance'] as number[]).join(','), 'only with --cell');
   const fits = cellFilter(flags.cell as number[] | undefined, flags['cell-tolerance'] as number[] | undefined);
 
   if (countRowKeys(options).length === 0) {

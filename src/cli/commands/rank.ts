@@ -40,7 +40,7 @@ function run(argv: readonly string[], io: CliIo): number {
   const { flags } = parseArgs(spec, argv);
   if (!flags.sites) invalid('--sites', undefined, 'required, e.g. --sites 3-12');
   if (!flags.holes) invalid('--holes', undefined, 'required, e.g. --holes 1-2');
-  if (flags.mesh !== undefined && flags.kspacing !== undefined) invalid('--kspacing', flags.kspacing, 'give --mesh or --kspacing, not both');
+  if (flags.mesh !== undefined && flags.kspacing !== undefined) invalid('--kspacing', String(flags.kspacing), 'give --mesh or --kspacing, not both');
   const sitesTyped = (flags.sites as number[]).join('-');
   const params = resolveParameters(flags.params as string | undefined, io);
   const options: EnumerateOptions = { sites: flags.sites as [number, number], holes: flags.holes as [number, number], isolated: flags.isolated === true };
@@ -67,7 +67,7 @@ function run(argv: readonly string[], io: CliIo): number {
   }
   const flag = flags.mesh !== undefined ? '--mesh' : '--kspacing';
   const value = flags.mesh ?? flags.kspacing ?? DEFAULT_KSPACING;
-  if (seconds > MAX_ESTIMATED_SECONDS) invalid(flag, value, `about ${readableSeconds(seconds)} for ${patterns.length} patterns; use ${flags.mesh !== undefined ? 'a smaller mesh' : 'a larger spacing'} or narrow --sites, --holes or --eta`);
+  if (seconds > MAX_ESTIMATED_SECONDS) invalid(flag, String(value), `about ${readableSeconds(seconds)} for ${patterns.length} patterns; use ${flags.mesh !== undefined ? 'a smaller mesh' : 'a larger spacing'} or narrow --sites, --holes or --eta`);
   const progress = new ProgressLine(io.err, 'patterns', { machine: flags.progress === true, job: 'rank' });
   progress.estimate(seconds, `${patterns.length} patterns at ${flags.mesh !== undefined ? `mesh ${flags.mesh}` : `k-spacing ${value} Å⁻¹`}`, { patterns: patterns.length });
   const ranking = rankByBandEnergy(patterns, params, {
