@@ -1,6 +1,7 @@
 /**
  * Flags and arguments shared by the commands that solve the tight-binding model, declared once.
  */
+import { DEFAULT_KSPACING, FIXED_MESH_MAX_ATOMS } from '../tb/meshDensity.ts';
 import type { FlagSpec } from './args.ts';
 
 /** Largest k-mesh side the CLI accepts: 400² k-points of an 8-atom cell take about a minute. */
@@ -16,7 +17,7 @@ export const PARAMS_FLAG: FlagSpec = {
 
 export const MESH_FLAG: FlagSpec = {
   kind: 'integer', min: 1, max: MAX_MESH, placeholder: 'M',
-  help: 'Γ-centred M×M k-mesh (default 36 for cells up to 12 atoms, else by --kspacing 0.08)',
+  help: `Γ-centred M×M k-mesh (default 36 for cells up to ${FIXED_MESH_MAX_ATOMS} atoms, else by --kspacing ${DEFAULT_KSPACING})`,
 };
 
 /** The k-point density alternative to --mesh (src/tb/meshDensity.ts); the two are exclusive. */

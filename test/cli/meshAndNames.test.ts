@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../src/cli/run.ts';
 import { makePattern, patternToSheet } from '../../src/lattice/pattern.ts';
-import { meshForSpacing } from '../../src/tb/meshDensity.ts';
+import { DEFAULT_KSPACING, meshForSpacing } from '../../src/tb/meshDensity.ts';
 import { fakeIo } from './fakeIo.ts';
 
 async function cli(argv: string[], files: Record<string, string> = {}, tty = false) {
@@ -25,7 +25,7 @@ async function refused(argv: string[], pattern: RegExp, files: Record<string, st
 }
 
 /** A 16-site cell with one hole: 15 atoms, over the 12-atom limit of the fixed default mesh. */
-const large = { bond: 1.69, supercell: [[4, 0], [0, 4]], vacancies: [[0, 0]] };
+const large = { bond: 1.69, supercell: [[4, 0], [0, 4]] as [[number, number], [number, number]], vacancies: [[0, 0]] as [number, number][] };
 const largeText = JSON.stringify(large);
 
 describe('the mesh of every mesh command', () => {
@@ -37,12 +37,12 @@ describe('the mesh of every mesh command', () => {
   });
 
   it('a cell over 12 atoms gets the default spacing, and every command says so', async () => {
-    const expected = meshForSpacing(patternToSheet(makePattern(large as Parameters<typeof makePattern>[0])).cell, 0.08);
+    const expected = meshForSpacing(patternToSheet(makePattern(large)).cell, DEFAULT_KSPACING);
     for (const command of ['fill', 'scan', 'dos', 'bonding']) {
       const document = JSON.parse((await cli([command, 'big.json', '--json'], { 'big.json': largeText })).stdout);
       expect(document.mesh, command).toBe(expected);
       expect(document.mesh_rule, command).toBe('default_kspacing');
-      expect(document.kspacing, command).toBe(0.08);
+      expect(document.kspacing, command).toBe(DEFAULT_KSPACING);
     }
   });
 
@@ -68,7 +68,7 @@ describe('the mesh of every mesh command', () => {
     expect(code).toBe(0);
     const document = JSON.parse(stdout);
     expect(document.mesh_rule).toBe('default_kspacing');
-    expect(document.kspacing).toBe(0.08);
+    expect(document.kspacing).toBe(DEFAULT_KSPACING);
     const meshes = document.groups.flatMap((g: { patterns: { mesh: number }[] }) => g.patterns.map((p) => p.mesh));
     expect(new Set(meshes).size).toBeGreaterThan(1); // cells of different size, different meshes
     const fixed = JSON.parse((await cli(['rank', '--sites', '3-4', '--holes', '1', '--mesh', '6', '--json'])).stdout);
