@@ -183,3 +183,8 @@ export function commandHelp(spec: CommandSpec): string {
   }
   return lines.join('\n');
 }
+
+/** A parsed range written back as the user would type it: `4-12`, or `6` for a one-point range. */
+export function rangeText(range: readonly number[]): string {
+  return range[0] === range[1] ? `${range[0]}` : `${range[0]}-${range[1]}`;
+}

@@ -6,7 +6,7 @@ import { countRowKeys, countStructures, enumerateStructures, type CountRow, type
 import { invalid } from '../../io/invalid.ts';
 import { hnfRows, patternCell, patternToSheet } from '../../lattice/pattern.ts';
 import { periodicityMismatch, periodicityOf, reducedPeriodicity } from '../../lattice/periodicity.ts';
-import { parseArgs, type CommandSpec } from '../args.ts';
+import { parseArgs, rangeText, type CommandSpec } from '../args.ts';
 import { JSON_FLAG, PROGRESS_FLAG } from '../commonFlags.ts';
 import { estimateEnumerate, expectedAt } from '../enumerateEstimate.ts';
 import type { Command, CliIo } from '../io.ts';
@@ -86,7 +86,7 @@ function whyNoRows(options: EnumerateOptions): string {
   const n2 = options.sites[1];
   const [k1] = options.holes;
   if (k1 > n2) return `a cell of N sites holds at most N holes, and --holes starts at ${k1} while --sites ends at ${n2}`;
-  return `no hole density k/N of these ranges lies within --eta ${options.holeDensity?.join('-')}`;
+  return `no hole density k/N of these ranges lies within --eta ${rangeText(options.holeDensity ?? [0, 1])}`;
 }
 
 function countTable(rows: readonly CountRow[]): string {
@@ -103,7 +103,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   if (!flags.holes) invalid('--holes', undefined, 'required, e.g. --holes 1-3');
   const expected = expectedStructures(flags.sites as [number, number], flags.holes as [number, number], flags.isolated === true);
   if (expected > MAX_EXPECTED_STRUCTURES) {
-    invalid('--sites', (flags.sites as number[]).join('-'), `about ${expected.toExponential(1)} structures with these --holes; narrow the ranges, add --isolated, or split the job with --shard`);
+    invalid('--sites', rangeText(flags.sites as number[]), `about ${expected.toExponential(1)} structures with these --holes; narrow the ranges, add --isolated, or split the job with --shard`);
   }
   const bond = (flags.bond as number | undefined) ?? 1.69;
   const progress = new ProgressLine(io.err, 'labelings', { machine: flags.progress === true, job: 'enumerate' });
@@ -133,7 +133,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const output = flags['counts-only'] ? 'counts' : json || jsonl ? 'json' : 'text';
   const estimate = estimateEnumerate(options, output);
   if (output !== 'counts' && estimate.bytes > MAX_OUTPUT_BYTES && flags['allow-large-output'] !== true) {
-    invalid('--sites', (flags.sites as number[]).join('-'), `about ${readableBytes(estimate.bytes)} of output or more (about ${estimate.structures.toExponential(1)} structures, ${readableSeconds(estimate.seconds)}); count them with --counts-only, narrow --sites or --holes, add --isolated, split the job with --shard, or add --allow-large-output`);
+    invalid('--sites', rangeText(flags.sites as number[]), `about ${readableBytes(estimate.bytes)} of output or more (about ${estimate.structures.toExponential(1)} structures, ${readableSeconds(estimate.seconds)}); count them with --counts-only, narrow --sites or --holes, add --isolated, split the job with --shard, or add --allow-large-output`);
   }
   progress.estimate(
     estimate.seconds,

@@ -6,7 +6,7 @@ import { invalid } from '../../io/invalid.ts';
 import { hnfRows, patternToSheet } from '../../lattice/pattern.ts';
 import { reducedSheet } from '../../lattice/reducedCell.ts';
 import { DEFAULT_KSPACING, rankByBandEnergy } from '../../tb/index.ts';
-import { parseArgs, type CommandSpec } from '../args.ts';
+import { parseArgs, rangeText, type CommandSpec } from '../args.ts';
 import { DOPING_FLAG, JSON_FLAG, KSPACING_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, PROGRESS_FLAG, SMEARING_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
 import { meshChoiceOf, resolveParameters } from '../parameters.ts';
@@ -41,7 +41,7 @@ function run(argv: readonly string[], io: CliIo): number {
   if (!flags.sites) invalid('--sites', undefined, 'required, e.g. --sites 3-12');
   if (!flags.holes) invalid('--holes', undefined, 'required, e.g. --holes 1-2');
   if (flags.mesh !== undefined && flags.kspacing !== undefined) invalid('--kspacing', String(flags.kspacing), 'give --mesh or --kspacing, not both');
-  const sitesTyped = (flags.sites as number[]).join('-');
+  const sitesTyped = rangeText(flags.sites as number[]);
   const params = resolveParameters(flags.params as string | undefined, io);
   const options: EnumerateOptions = { sites: flags.sites as [number, number], holes: flags.holes as [number, number], isolated: flags.isolated === true };
   if (flags.eta) options.holeDensity = flags.eta as [number, number];
@@ -53,7 +53,7 @@ function run(argv: readonly string[], io: CliIo): number {
     patterns.push({ name, pattern: structure.pattern });
   }
   if (patterns.length === 0) {
-    const why = `no pattern with atoms left for --sites ${sitesTyped} --holes ${(flags.holes as number[]).join('-')}${flags.isolated ? ' --isolated' : ''}${flags.eta ? ` --eta ${(flags.eta as number[]).join('-')}` : ''}`;
+    const why = `no pattern with atoms left for --sites ${sitesTyped} --holes ${rangeText(flags.holes as number[])}${flags.isolated ? ' --isolated' : ''}${flags.eta ? ` --eta ${rangeText(flags.eta as number[])}` : ''}`;
     if (flags.json) io.out(`${JSON.stringify({ parameters: params.name, note: why, groups: [] })}\n`);
     else io.out(`none: ${why}\n`);
     return 0;
