@@ -5,7 +5,9 @@
  * stated beside the figures, never asserted.
  */
 import { enumerateStructures } from '../src/enumerate/index.ts';
-import { DEFAULT_KSPACING, DEFAULT_PARAMETERS, findParameterPreset, rankByBandEnergy, type RankingResult } from '../src/tb/index.ts';
+import { DEFAULT_KSPACING, DEFAULT_PARAMETERS, fill, findParameterPreset, meshForSpacing, rankByBandEnergy, TightBindingModel, type ParameterSet, type RankingResult } from '../src/tb/index.ts';
+import { patternToSheet } from '../src/lattice/pattern.ts';
+import { reducedSheet } from '../src/lattice/reducedCell.ts';
 import type { Pattern } from '../src/lattice/sheet.ts';
 
 function patterns(): { name: string; pattern: Pattern }[] {
@@ -23,6 +25,14 @@ function energies(result: RankingResult): Map<string, { energy: number; mesh: nu
   return map;
 }
 
+/** Spacing of the converged reference (Å⁻¹), mesh side capped at 160. */
+const CONVERGED_SPACING = 0.025;
+
+function converged(pattern: Pattern, params: ParameterSet): number {
+  const sheet = reducedSheet(patternToSheet(pattern));
+  return fill(new TightBindingModel(sheet, params), { mesh: Math.min(160, meshForSpacing(sheet.cell, CONVERGED_SPACING)) }).bandEnergyPerAtom;
+}
+
 export async function benchMeshDensity(spacings: number[] = [DEFAULT_KSPACING]): Promise<void> {
   const params = findParameterPreset(DEFAULT_PARAMETERS)!;
   const list = patterns();
@@ -37,19 +47,30 @@ export async function benchMeshDensity(spacings: number[] = [DEFAULT_KSPACING]):
     const seconds = (performance.now() - started) / 1000;
     let worst = 0;
     let where = '';
+    const far: string[] = [];
     let meshes = [Infinity, 0];
     for (const [name, r] of reference) {
       const d = dense.get(name)!;
       const diff = Math.abs(d.energy - r.energy);
       if (diff > worst) [worst, where] = [diff, `${name} (mesh ${d.mesh})`];
+      if (diff > 5e-4) far.push(name);
       meshes = [Math.min(meshes[0], d.mesh), Math.max(meshes[1], d.mesh)];
     }
     console.log(`  k-spacing ${spacing} Å⁻¹ (meshes ${meshes[0]}–${meshes[1]})  ${seconds.toFixed(1)} s (target ≤ 5 s); largest band-energy difference ${worst.toExponential(2)} eV/atom (target ≤ 1e-3) at ${where}`);
+    // Which side is off: both against a converged mesh, on the patterns where they differ by more than 5e-4 eV.
+    let off36 = 0;
+    let offDensity = 0;
+    for (const name of far) {
+      const best = converged(list.find((p) => p.name === name)!.pattern, params);
+      off36 = Math.max(off36, Math.abs(reference.get(name)!.energy - best));
+      offDensity = Math.max(offDensity, Math.abs(dense.get(name)!.energy - best));
+    }
+    if (far.length) console.log(`    on the ${far.length} patterns differing by > 5e-4 eV, against spacing ${CONVERGED_SPACING} Å⁻¹: mesh 36 off by ≤ ${off36.toExponential(2)}, k-spacing ${spacing} off by ≤ ${offDensity.toExponential(2)} eV/atom`);
   }
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  // `npx tsx bench/meshDensity.ts 0.08 0.06` compares other spacings too.
+  // `npx tsx bench/meshDensity.ts 0.12 0.08` compares other spacings too.
   const given = process.argv.slice(2).map(Number).filter((x) => x > 0);
   await benchMeshDensity(given.length ? given : undefined);
 }

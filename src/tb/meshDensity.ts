@@ -11,12 +11,14 @@ import { reciprocal } from './kspace.ts';
 import { DEFAULT_MESH } from './meshSpectrum.ts';
 
 /**
- * Default k-spacing (Å⁻¹) where the density rule applies: the coarsest of the spacings we measured that keeps the
- * band energies per atom of `rank --sites 1-20 --holes 1-2 --isolated` within 1e-3 eV of their mesh-36 values at
- * Gaussian width 0.1 eV (bench/meshDensity.ts prints the figures; 0.12 Å⁻¹, about mesh 36 on the 1-site cell at
- * the 1.69 Å bond, missed by 3e-3 eV). A 20-site cell gets a 14×14 mesh instead of 36×36.
+ * Default k-spacing (Å⁻¹) where the density rule applies: the coarsest of the spacings we measured (0.12, 0.1,
+ * 0.09, 0.08, 0.07, 0.06) that keeps the band energies per atom of `rank --sites 1-20 --holes 1-2 --isolated`
+ * (reduced cells) within 1e-3 eV of their mesh-36 values at Gaussian width 0.1 eV: 7.6e-4 eV at 0.06, 1.1e-3 at
+ * 0.07, 3.3e-3 at 0.12 (about mesh 36 on the 1-site cell at the 1.69 Å bond). Against a converged mesh
+ * (spacing 0.025) mesh 36 itself is within 4.5e-4 eV on those cells, 0.12 Å⁻¹ off by up to 3.6e-3 eV: a width
+ * of 0.1 eV needs this density. bench/meshDensity.ts prints the figures. A 20-site cell gets about 18×18.
  */
-export const DEFAULT_KSPACING = 0.08;
+export const DEFAULT_KSPACING = 0.06;
 
 /** Cells up to this many atoms keep the documented default mesh 36 (the presets' cells: `fill NAME` stays as it was). */
 export const FIXED_MESH_MAX_ATOMS = 12;
