@@ -50,7 +50,11 @@ export async function runCli(argv: readonly string[], io: CliIo, debug = false):
     }
     return await command.run(rest, io);
   } catch (error) {
-    if (error instanceof PipeClosed) return PIPE_CLOSED_STATUS; // the reader stopped early: normal, say nothing
+    if (error instanceof PipeClosed) {
+      // The reader stopped early: normal, say nothing (but clear a progress line a terminal may show).
+      if (io.err.isTTY) io.err.write('\r\x1b[K');
+      return PIPE_CLOSED_STATUS;
+    }
     if (error instanceof ValidationError) {
       io.err.write(`${error.message}\n`);
       return 2;
