@@ -6,12 +6,14 @@ import { benchEigh } from './eigh.ts';
 import { benchEnumerate } from './enumerate.ts';
 import { benchFigures } from './figures.ts';
 import { benchTightBinding } from './tb.ts';
+import { benchMeshDensity } from './meshDensity.ts';
 
 const suites: [string, () => Promise<void>][] = [
   ['enumeration', benchEnumerate],
   ['Hermitian eigensolver', benchEigh],
   ['tight binding', benchTightBinding],
   ['figures', benchFigures],
+  ['mesh density (rank)', () => benchMeshDensity()],
 ];
 
 const only = process.argv[2];

@@ -12,6 +12,7 @@ import { ValidationError } from '../io/invalid.ts';
 import { hnfRows, makePattern } from '../lattice/pattern.ts';
 import { countingRuleDoping } from '../tb/countingRule.ts';
 import { FermiSolver } from '../tb/fermi.ts';
+import { chooseMesh, type MeshChoice } from '../tb/meshDensity.ts';
 import { observablesAt } from '../tb/fill.ts';
 import type { SigmaBondingResult } from '../tb/sigmaBonding.ts';
 import { EditHistory } from './history.ts';
@@ -253,9 +254,14 @@ export class App {
       pi,
       bandEnergy,
       parameters: parameterSet(this.state.params).name,
-      mesh: this.state.mesh,
+      mesh: this.mesh().why,
       smearing: this.state.smearing,
     });
+  }
+
+  /** The mesh of the spectra: the user's, or the CLI's rule for this cell (meshDensity.ts). */
+  mesh(): MeshChoice {
+    return chooseMesh(this.resolved.sheet, { mesh: this.state.mesh });
   }
 
   /** E_F at the counting rule's doping, when that doping is a legal count (3 + δ in (0, 8)). */
@@ -297,7 +303,7 @@ export class App {
       params,
       doping: this.state.doping,
       smearing: this.state.smearing,
-      mesh: this.state.mesh,
+      mesh: this.mesh().mesh,
       pathPoints: PATH_POINTS,
       eta: this.resolved.eta,
       etaEstimated: this.resolved.etaEstimated,

@@ -3,7 +3,7 @@
  *
  * Hash keys (our own): `sheet` (a preset name, or sheet-file JSON in either contract form — the CLI's SHEET
  * argument), `params` (a parameter-set preset name, or parameter-file JSON — the CLI's --params), `doping`,
- * `smearing`, `mesh` (the CLI's defaults when absent), `repeats`, `pick` (k index, band of the selected state),
+ * `smearing`, `mesh` (the CLI's defaults and mesh rule when absent), `repeats`, `pick` (k index, band of the selected state),
  * `label`, and the candidate search: `sites`, `holes`, `eta`, `isolated`, `cell` (a,b,γ), `tolerance` (Å,°).
  * Every field is validated like any input: a bad one is reported as `invalid URL <key>: <value> (<why>)` and
  * falls back to its default, the others are kept.
@@ -14,7 +14,6 @@ import { parseSheetText } from '../io/sheetFile.ts';
 import { hnfRows } from '../lattice/pattern.ts';
 import { findSheetPreset, SHEET_PRESETS } from '../lattice/presets.ts';
 import type { Pattern, Sheet } from '../lattice/sheet.ts';
-import { DEFAULT_MESH } from '../tb/meshSpectrum.ts';
 import { DEFAULT_SMEARING } from '../tb/fill.ts';
 import { DEFAULT_PARAMETERS, findParameterPreset, PARAMETER_PRESETS, type ParameterSet } from '../tb/params.ts';
 
@@ -48,8 +47,8 @@ export interface ViewState {
   doping: number;
   /** Gaussian width (eV). */
   smearing: number;
-  /** Γ-centred mesh side. */
-  mesh: number;
+  /** Γ-centred mesh side; absent: the CLI's rule (36 for cells up to 12 atoms, else one k-point density). */
+  mesh?: number;
   /** Copies of the cell drawn along each vector. */
   repeats: number;
   /** The selected Bloch state on the path, if any. */
@@ -76,7 +75,6 @@ export function defaultState(): ViewState {
     params: { kind: 'preset', name: DEFAULT_PARAMETERS },
     doping: 0,
     smearing: DEFAULT_SMEARING,
-    mesh: DEFAULT_MESH,
     repeats: 3,
     search: defaultSearch(),
   };
@@ -238,7 +236,7 @@ export function writeHash(state: ViewState): string {
   else if (state.params.name !== DEFAULT_PARAMETERS) out.set('params', state.params.name);
   if (state.doping !== defaults.doping) out.set('doping', String(state.doping));
   if (state.smearing !== defaults.smearing) out.set('smearing', String(state.smearing));
-  if (state.mesh !== defaults.mesh) out.set('mesh', String(state.mesh));
+  if (state.mesh !== undefined) out.set('mesh', String(state.mesh));
   if (state.repeats !== defaults.repeats) out.set('repeats', String(state.repeats));
   if (state.pick) out.set('pick', `${state.pick.kIndex},${state.pick.band}`);
   const search = state.search;

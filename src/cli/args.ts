@@ -153,6 +153,10 @@ export function parseArgs(spec: CommandSpec, argv: readonly string[]): ParsedArg
         text = argv[++at];
       }
       flags[name] = parseValue(flag, flagSpec, text);
+    } else if (/^-[A-Za-z]/.test(word)) {
+      // A single-dash word is a mistyped option, not a positional argument (a file named so can be given as ./-m).
+      const known = Object.keys(spec.flags).map((f) => `--${f}`).join(', ');
+      invalid(/^-[A-Za-z][\w-]*$/.test(word) ? word : 'option', word, `unknown option for ${spec.name}; options are written --name; known: ${known}`);
     } else {
       given.push(word);
     }
@@ -178,4 +182,9 @@ export function commandHelp(spec: CommandSpec): string {
     lines.push(`  ${left.padEnd(22)} ${flag.help}`);
   }
   return lines.join('\n');
+}
+
+/** A parsed range written back as the user would type it: `4-12`, or `6` for a one-point range. */
+export function rangeText(range: readonly number[]): string {
+  return range[0] === range[1] ? `${range[0]}` : `${range[0]}-${range[1]}`;
 }

@@ -18,6 +18,21 @@ export interface CliIo {
   exists(path: string): boolean;
 }
 
+/**
+ * Thrown by `out` when the reader of stdout has gone (EPIPE: `… | head -1`). Not an error of the user or of
+ * lacuna: the shell stops quietly with the status a closed pipe gives (PIPE_CLOSED_STATUS), and the work stops
+ * with it because the exception unwinds the command.
+ */
+export class PipeClosed extends Error {
+  override readonly name = 'PipeClosed';
+  constructor() {
+    super('the reader of standard output has closed the pipe');
+  }
+}
+
+/** 128 + SIGPIPE (13): what a shell shows for a program stopped by a closed pipe. */
+export const PIPE_CLOSED_STATUS = 141;
+
 /** A command: parses its own flags from argv and returns the exit code. */
 export interface Command {
   readonly spec: import('./args.ts').CommandSpec;

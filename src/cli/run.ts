@@ -1,6 +1,6 @@
 /**
  * The command-line shell: dispatch, help, and the one rule for errors — a ValidationError is one line on stderr
- * and exit code 2; anything else is an internal error, exit 1, with the trace only when LACUNA_DEBUG is set.
+ * and exit code 2; a closed stdout pipe stops quietly with status 141; anything else is an internal error, exit 1, with the trace only when LACUNA_DEBUG is set.
  */
 import { ValidationError, invalid } from '../io/invalid.ts';
 import { commandHelp } from './args.ts';
@@ -16,7 +16,7 @@ import { plotCommand } from './commands/plot.ts';
 import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
 import { scanCommand } from './commands/scan.ts';
-import type { CliIo, Command } from './io.ts';
+import { PIPE_CLOSED_STATUS, PipeClosed, type CliIo, type Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
@@ -51,6 +51,11 @@ export async function runCli(argv: readonly string[], io: CliIo, debug = false):
     }
     return await command.run(rest, io);
   } catch (error) {
+    if (error instanceof PipeClosed) {
+      // The reader stopped early: normal, say nothing (but clear a progress line a terminal may show).
+      if (io.err.isTTY) io.err.write('\r\x1b[K');
+      return PIPE_CLOSED_STATUS;
+    }
     if (error instanceof ValidationError) {
       io.err.write(`${error.message}\n`);
       return 2;

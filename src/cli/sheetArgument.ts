@@ -1,7 +1,7 @@
 /**
  * The SHEET argument of every command: a preset name, a path to a sheet file, or the JSON text itself.
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid, namingSource } from '../io/invalid.ts';
 import { parseSheetText } from '../io/sheetFile.ts';
 import { patternToSheet } from '../lattice/pattern.ts';
 import { SHEET_PRESETS, findSheetPreset } from '../lattice/presets.ts';
@@ -27,5 +27,5 @@ export function resolveSheet(text: string, io: CliIo, field = 'SHEET'): SheetArg
     const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such preset or file' : 'cannot read the file';
     invalid(field, text, `${reason}; presets: ${names}`);
   }
-  return { label: text, ...parseSheetText(content, text) };
+  return { label: text, ...namingSource('the sheet file', text, () => parseSheetText(content, text)) };
 }

@@ -6,6 +6,7 @@
  */
 import { invalid } from '../io/invalid.ts';
 import { isPlanar, type Sheet } from '../lattice/sheet.ts';
+import { readableSeconds } from './progress.ts';
 
 /** Largest sheet the tight-binding commands accept: H(k) is 4n × 4n complex, 256 MB at n = 1000. */
 export const MAX_MODEL_ATOMS = 1000;
@@ -22,24 +23,21 @@ export function estimatedSeconds(sheet: Sheet, kpoints: number): number {
   return perK * kpoints;
 }
 
-function readable(seconds: number): string {
-  if (seconds < 120) return `${seconds.toFixed(0)} s`;
-  if (seconds < 7200) return `${(seconds / 60).toFixed(0)} min`;
-  if (seconds < 48 * 3600) return `${(seconds / 3600).toFixed(1)} h`;
-  return `${(seconds / 86400).toFixed(0)} days`;
-}
-
 /**
- * Refuses a job estimated past MAX_ESTIMATED_SECONDS, naming the flag that sets its size (`--mesh`, `--points`).
- * `kpointsOf(v)` gives the k-point count for a flag value v, to suggest the largest value that fits.
+ * Refuses a job estimated past MAX_ESTIMATED_SECONDS, naming the flag that sets its size (`--mesh`, `--kspacing`,
+ * `--points`). `kpointsOf(v)` gives the k-point count for a flag value v; `cheaper(v)` the next value to try when
+ * suggesting one that fits (default: v/1.25 rounded down, for a mesh side or a point count).
  */
-export function guardSolve(sheet: Sheet, flag: string, value: number, kpointsOf: (v: number) => number): void {
+export function guardSolve(
+  sheet: Sheet, flag: string, value: number, kpointsOf: (v: number) => number,
+  cheaper: (v: number) => number = (v) => Math.floor(v / 1.25),
+): void {
   const atoms = sheet.atoms.length;
   if (atoms > MAX_MODEL_ATOMS) invalid('SHEET', `${atoms} atoms`, `the tight-binding commands take at most ${MAX_MODEL_ATOMS} atoms per cell`);
   const seconds = estimatedSeconds(sheet, kpointsOf(value));
   if (seconds <= MAX_ESTIMATED_SECONDS) return;
   let fits = value;
-  while (fits > 1 && estimatedSeconds(sheet, kpointsOf(fits)) > MAX_ESTIMATED_SECONDS) fits = Math.floor(fits / 1.25);
-  const hint = fits >= 1 && estimatedSeconds(sheet, kpointsOf(fits)) <= MAX_ESTIMATED_SECONDS ? `; ${flag} ${fits} fits in an hour` : '; use a smaller cell';
-  invalid(flag, value, `about ${readable(seconds)} for ${atoms} atoms per cell${hint}`);
+  for (let tries = 0; tries < 100 && fits > 0 && estimatedSeconds(sheet, kpointsOf(fits)) > MAX_ESTIMATED_SECONDS; tries++) fits = cheaper(fits);
+  const hint = fits > 0 && estimatedSeconds(sheet, kpointsOf(fits)) <= MAX_ESTIMATED_SECONDS ? `; ${flag} ${fits} fits in an hour` : '; use a smaller cell';
+  invalid(flag, String(value), `about ${readableSeconds(seconds)} for ${atoms} atoms per cell${hint}`);
 }

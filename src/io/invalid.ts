@@ -1,6 +1,11 @@
 /**
  * The one error style of lacuna: `invalid <field path>: <value> (<why>)`.
  * Thrown at the boundary (files, CLI flags, UI fields, URL state); kernels trust their inputs.
+ *
+ * The one quoting rule: the value is shown as JSON renders what the user wrote. Everything typed on a command
+ * line is text — a flag's value, an argument, a file name — so it is always in double quotes, as typed
+ * ("36", "-m", "1-22"), even when it is a number; a value read from a JSON file keeps its JSON type (a number
+ * bare, text quoted); a value not given at all is `missing`. Callers pass command-line values as strings.
  */
 export class ValidationError extends Error {
   override readonly name = 'ValidationError';
@@ -76,4 +81,18 @@ export function invalid(field: string, value: unknown, why: string): never {
 export function fieldPath(parent: string, key: string): string {
   if (/^[A-Za-z_][\w-]*$/.test(key)) return parent ? `${parent}.${key}` : key;
   return `${parent}[${JSON.stringify(key.length > 40 ? `${key.slice(0, 37)}...` : key)}]`;
+}
+
+/**
+ * Runs a parse of one input and names the input in any field error it throws: `invalid onsite.p: "a" (expected a
+ * number; in the parameter file "p.json")`. An error already about the whole input (its field is the input's
+ * name) is left as it is.
+ */
+export function namingSource<T>(what: string, name: string, parse: () => T): T {
+  try {
+    return parse();
+  } catch (error) {
+    if (!(error instanceof ValidationError) || error.field === name) throw error;
+    throw new ValidationError(error.field, error.value, `${error.why}; in ${what} ${show(name)}`);
+  }
 }

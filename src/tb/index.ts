@@ -21,3 +21,4 @@ export * from './sigmaBondingRefine.ts';
 export * from './dosInterpolated.ts';
 export * from './zone.ts';
 export * from './blochState.ts';
+export * from './meshDensity.ts';

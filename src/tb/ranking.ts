@@ -5,8 +5,10 @@
  * and the result says so.
  */
 import { holeDensity, patternToSheet } from '../lattice/pattern.ts';
+import { reducedSheet } from '../lattice/reducedCell.ts';
 import type { Pattern } from '../lattice/sheet.ts';
 import { fill, type FillOptions } from './fill.ts';
+import { chooseMesh, type MeshChoiceOptions, type MeshRule } from './meshDensity.ts';
 import { TightBindingModel } from './model.ts';
 import type { ParameterSet } from './params.ts';
 
@@ -17,7 +19,19 @@ export interface RankedPattern {
   bandEnergyPerAtom: number;
   /** Band energy per atom above the lowest of its group (eV, ≥ 0). */
   aboveLowest: number;
+  /** Mesh side this pattern was solved on, and the rule that chose it (meshDensity.ts). */
+  mesh: number;
+  meshRule: MeshRule;
 }
+
+/**
+ * Options of a ranking: doping and width as for fill; the mesh by meshDensity.ts's rule with `equalDensity` on
+ * unless `mesh` is given — every pattern at the same k-point density (DEFAULT_KSPACING or `kspacing`), so band
+ * energies per atom compare on equal terms and a large cell costs no more k-points than its zone needs.
+ */
+export type RankingOptions = Omit<FillOptions, 'onProgress' | 'mesh'> & Omit<MeshChoiceOptions, 'equalDensity'> & {
+  onProgress?: (patternsDone: number, total: number) => void;
+};
 
 /** Ranking result: one group per hole density, lowest band energy first. */
 export interface RankingResult {
@@ -30,23 +44,39 @@ export interface RankingResult {
 /** Hole densities closer than this are one group. */
 const SAME_ETA = 1e-9;
 
+/**
+ * The band energy per atom of one pattern as a ranking computes it: in the pattern's reduced cell (the same sheet,
+ * but its square mesh needs far fewer points than an elongated HNF cell's), at the ranking's k-point density.
+ */
+export function rankingFill(
+  pattern: Pattern,
+  params: ParameterSet,
+  options: Omit<RankingOptions, 'onProgress'> = {},
+): { fermi: number; bandEnergyPerAtom: number; mesh: number; meshRule: MeshRule } {
+  const { mesh: givenMesh, kspacing, ...fillOptions } = options;
+  const sheet = reducedSheet(patternToSheet(pattern));
+  const choice = chooseMesh(sheet, { mesh: givenMesh, kspacing, equalDensity: true });
+  const result = fill(new TightBindingModel(sheet, params), { ...fillOptions, mesh: choice.mesh });
+  return { fermi: result.fermi, bandEnergyPerAtom: result.bandEnergyPerAtom, mesh: choice.mesh, meshRule: choice.rule };
+}
+
 export function rankByBandEnergy(
   patterns: readonly { name: string; pattern: Pattern }[],
   params: ParameterSet,
-  options: Omit<FillOptions, 'onProgress'> & { onProgress?: (patternsDone: number, total: number) => void } = {},
+  options: RankingOptions = {},
 ): RankingResult {
-  const { onProgress, ...fillOptions } = options;
+  const { onProgress, ...solveOptions } = options;
   const groups: { holeDensity: number; patterns: RankedPattern[] }[] = [];
   for (const [done, { name, pattern }] of patterns.entries()) {
     const eta = holeDensity(pattern);
-    const result = fill(new TightBindingModel(patternToSheet(pattern), params), fillOptions);
+    const result = rankingFill(pattern, params, solveOptions);
     onProgress?.(done + 1, patterns.length);
     let group = groups.find((g) => Math.abs(g.holeDensity - eta) < SAME_ETA);
     if (!group) {
       group = { holeDensity: eta, patterns: [] };
       groups.push(group);
     }
-    group.patterns.push({ name, fermi: result.fermi, bandEnergyPerAtom: result.bandEnergyPerAtom, aboveLowest: 0 });
+    group.patterns.push({ name, fermi: result.fermi, bandEnergyPerAtom: result.bandEnergyPerAtom, aboveLowest: 0, mesh: result.mesh, meshRule: result.meshRule });
   }
   groups.sort((a, b) => a.holeDensity - b.holeDensity);
   for (const group of groups) {

@@ -212,7 +212,8 @@ describe.skipIf(!available)('the web view in Chromium', () => {
   it('reports a bad link field by name and shows the rest', async () => {
     const { page, errors } = await openPage('#sheet=alpha&mesh=banana');
     expect(await page.locator('.notice').first().innerText()).toMatch(/invalid URL mesh: "banana" \(not an integer\)/);
-    expect(await page.locator('#mesh').inputValue()).toBe('36');
+    expect(await page.locator('#mesh').inputValue()).toBe('');
+    expect(await page.locator('#mesh').getAttribute('placeholder')).toBe('auto: 36');
     expect(errors).toEqual([]);
   });
 

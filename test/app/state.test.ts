@@ -8,7 +8,8 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     expect(errors).toEqual([]);
     expect(state.sheet).toEqual({ kind: 'preset', name: 'beta12' });
     expect(state.params).toEqual({ kind: 'preset', name: 'harrison1980' });
-    expect([state.mesh, state.smearing, state.doping]).toEqual([36, 0.1, 0]);
+    // The CLI's defaults: mesh by its rule (36 for the presets' cells), width 0.1 eV, doping 0.
+    expect([state.mesh, state.smearing, state.doping]).toEqual([undefined, 0.1, 0]);
     expect(writeHash(state)).toBe('#sheet=beta12');
   });
 
@@ -28,7 +29,7 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     const { state, errors } = readHash('#sheet=alpha&doping=abc&mesh=0&sites=9-3&colour=red', defaultState());
     expect(state.sheet).toEqual({ kind: 'preset', name: 'alpha' });
     expect(state.doping).toBe(0);
-    expect(state.mesh).toBe(36);
+    expect(state.mesh).toBeUndefined();
     expect(errors.map((e) => e.message)).toEqual([
       'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance)',
       'invalid URL doping: "abc" (not a number)',

@@ -120,7 +120,7 @@ describe('lacuna bands / fill / export', () => {
 describe('lacuna dos / bonding / rank', () => {
   it('dos --json integrates to 8 states per atom, σ to 6 and π to 2 (4 orbitals × 2 spins; common practice)', async () => {
     for (const method of ['gaussian', 'triangle']) {
-      const { code, stdout } = await cli(['dos', 'beta12', '--mesh', '12', '--method', method, '--points', '4001', '--json']);
+      const { code, stdout } = await cli(['dos', 'beta12', '--mesh', '12', '--method', method, '--energy-grid', '4001', '--json']);
       expect(code).toBe(0);
       const dos = JSON.parse(stdout);
       const step = dos.energy[1] - dos.energy[0];
@@ -137,7 +137,7 @@ describe('lacuna dos / bonding / rank', () => {
     const document = JSON.parse(stdout);
     // Counting rule at η = 1/5: δ = 8/(3·4/5) − 3 = 1/3 (analytic, from the rule's formula).
     expect(document.counting_rule.doping).toBeCloseTo(1 / 3, 12);
-    expect(document.hole_density).toBeCloseTo(1 / 5, 12);
+    expect(document.eta).toBeCloseTo(1 / 5, 12);
     expect(Number.isFinite(document.sigma_filling.sigma_capacity)).toBe(true);
     expect(Number.isFinite(document.sigma_filling.doping)).toBe(true);
   });
@@ -152,7 +152,7 @@ describe('lacuna dos / bonding / rank', () => {
       for (let i = 1; i < group.patterns.length; i++) expect(group.patterns[i].band_energy_per_atom).toBeGreaterThanOrEqual(group.patterns[i - 1].band_energy_per_atom);
     }
     // η of the one-hole patterns with N ≤ 9 sites: 1/N for N = 3…9 (1 and 2 sites have no isolated hole).
-    expect(document.groups.map((g: { hole_density: number }) => g.hole_density)).toEqual([1 / 9, 1 / 8, 1 / 7, 1 / 6, 1 / 5, 1 / 4, 1 / 3]);
+    expect(document.groups.map((g: { eta: number }) => g.eta)).toEqual([1 / 9, 1 / 8, 1 / 7, 1 / 6, 1 / 5, 1 / 4, 1 / 3]);
   });
 });
 
@@ -198,8 +198,10 @@ describe('tight-binding commands: limits', () => {
     const atoms: number[][] = [];
     for (let i = 0; i < 30; i++) for (let j = 0; j < 30; j++) atoms.push([(i + 0.5) / 60, (j + 0.5) / 60]);
     const sheet = JSON.stringify({ cell: [[60 * 1.69, 0], [30 * 1.69, 30 * 1.69 * Math.sqrt(3)]], atoms });
-    await refused(['fill', 'big.json'], /^invalid --mesh: 36 \(about [\d.]+ h for 900 atoms per cell; --mesh \d+ fits in an hour\)/, { 'big.json': sheet });
-    await refused(['bands', 'big.json', '--path', 'auto'], /^invalid --points: 300 \(about/, { 'big.json': sheet });
+    await refused(['fill', 'big.json', '--mesh', '36'], /^invalid --mesh: "36" \(about [\d.]+ h for 900 atoms per cell; --mesh \d+ fits in an hour\)/, { 'big.json': sheet });
+    // A fine spacing is refused against --kspacing, with a coarser spacing that fits.
+    await refused(['fill', 'big.json', '--kspacing', '0.005'], /^invalid --kspacing: "0\.005" \(about [\d.]+ (min|h|days) for 900 atoms per cell; --kspacing [\d.]+ fits in an hour\)/, { 'big.json': sheet });
+    await refused(['bands', 'big.json', '--path', 'auto'], /^invalid --points: "300" \(about/, { 'big.json': sheet });
   });
 
   it('warns on stderr when no bond lies within the cutoff, and still answers', async () => {
@@ -216,9 +218,9 @@ describe('lacuna geometry', () => {
     expect(code).toBe(0);
     const document = JSON.parse(stdout);
     expect(document.coordination).toEqual({ '5': 6, '6': 2 });
-    expect(document.holes.hexagonal).toBe(1);
+    expect(document.hole_clusters.hexagonal).toBe(1);
     expect(document.phase).toBe('alpha');
-    expect(document.hole_density).toBeCloseTo(1 / 9, 12);
+    expect(document.eta).toBeCloseTo(1 / 9, 12);
   });
 
   it('recognises an exported χ3 as the same pattern (β12/χ3 of Feng et al., Nat. Chem. 8, 563 (2016): 4- and 5-fold atoms)', async () => {

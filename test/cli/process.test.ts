@@ -3,6 +3,9 @@
  * document even through a slow pipe, and errors are one stderr line with exit code 2.
  */
 import { spawn } from 'node:child_process';
+import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 /** Runs the CLI with its stdout piped into a reader that starts `readDelaySeconds` late (a shell pipeline). */
@@ -34,5 +37,14 @@ describe('lacuna as a process', () => {
     expect(code).toBe(2);
     expect(stdout).toBe('');
     expect(stderr).toBe('invalid --mesh: "many" (not an integer)\n');
+  });
+
+  it('writes an output file through a temporary name: afterwards only the whole file is there', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'lacuna-'));
+    const target = join(dir, 'dos.csv');
+    const { code } = await runProcess(['dos', 'alpha', '--mesh', '4', '--energy-grid', '50', '--csv', target]);
+    expect(code).toBe(0);
+    expect(readdirSync(dir)).toEqual(['dos.csv']);
+    expect(readFileSync(target, 'utf8').trimEnd().split('\n')).toHaveLength(51);
   });
 });

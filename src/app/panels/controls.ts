@@ -97,7 +97,9 @@ export function wireControls(app: App, doc: Document): void {
     dopingRange.value = String(Math.max(-1, Math.min(2, app.state.doping)));
     if (doc.activeElement !== doping) doping.value = String(app.state.doping);
     smearing.value = String(app.state.smearing);
-    mesh.value = String(app.state.mesh);
+    mesh.value = app.state.mesh === undefined ? '' : String(app.state.mesh);
+    mesh.placeholder = `auto: ${app.mesh().mesh}`;
+    mesh.title = app.mesh().why;
     repeats.value = String(app.state.repeats);
     const pattern = app.resolved.pattern;
     const rows = pattern ? hnfRows(pattern.supercell) : undefined;
@@ -157,8 +159,9 @@ export function wireControls(app: App, doc: Document): void {
   });
   mesh.addEventListener('change', () => {
     try {
-      const value = readNumber(mesh, 'k-mesh', LIMITS.mesh[0], LIMITS.mesh[1]);
-      if (!Number.isInteger(value)) invalid('k-mesh', mesh.value, 'not an integer');
+      // Empty: back to the CLI's rule (36 for cells up to 12 atoms, else one k-point density).
+      const value = mesh.value.trim() === '' ? undefined : readNumber(mesh, 'k-mesh', LIMITS.mesh[0], LIMITS.mesh[1]);
+      if (value !== undefined && !Number.isInteger(value)) invalid('k-mesh', mesh.value, 'not an integer');
       void app.edit({ mesh: value }, 'spectra');
     } catch (error) {
       refuse(error, mesh);

@@ -20,7 +20,8 @@ export interface CountFigures {
   pi?: number;
   bandEnergy?: number;
   parameters: string;
-  mesh: number;
+  /** The mesh and why (meshDensity.ts's sentence). */
+  mesh: string;
   smearing: number;
 }
 
@@ -40,7 +41,7 @@ export function drawCountBox(host: HTMLElement, figures: CountFigures): void {
     rows.push(['model fills σ bonding at δ', `${signed(bonding.fillingDoping)} e/atom`, `the model's σ bonding states end in a ${where}`]);
     if (bonding.fillingRange) rows.push(['… any δ between', `${signed(bonding.fillingRange.lower)} and ${signed(bonding.fillingRange.upper)}`, 'keeps σ bonding full and σ antibonding empty']);
     if (!bonding.convergence.converged) {
-      rows.push(['not converged at this mesh', `mesh ${figures.mesh}: try ${nextMesh(figures.mesh)}`, `the σ count from the mesh states and from the bands interpolated between them differ (${signed(bonding.convergence.fillingDoping)} e/atom interpolated): the mesh is too coarse for this analysis`]);
+      rows.push(['not converged at this mesh', `try mesh ${nextMesh(bonding.mesh)}`, `the σ count from the mesh states and from the bands interpolated between them differ (${signed(bonding.convergence.fillingDoping)} e/atom interpolated): the mesh is too coarse for this analysis`]);
     }
   }
   rows.push(['doping now δ', `${signed(figures.doping)} e/atom`, 'positive: electrons given by the metal']);
@@ -59,6 +60,6 @@ export function drawCountBox(host: HTMLElement, figures: CountFigures): void {
   }
   const caveat = doc.createElement('p');
   caveat.className = 'caveat';
-  caveat.textContent = `Model: ${figures.parameters}, ${figures.mesh}×${figures.mesh} k-mesh, Gaussian width ${figures.smearing} eV. The rule is a rule of thumb and the model an estimate (universal parameters bind σ states too strongly for boron); experiment and higher-level calculations decide.`;
+  caveat.textContent = `Model: ${figures.parameters}, ${figures.mesh}, Gaussian width ${figures.smearing} eV. The rule is a rule of thumb and the model an estimate (universal parameters bind σ states too strongly for boron); experiment and higher-level calculations decide.`;
   host.replaceChildren(table, caveat);
 }

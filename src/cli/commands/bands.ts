@@ -1,13 +1,14 @@
 /**
  * `lacuna bands`: band energies and σ weights on an automatic k-path or on given k-points (DESIGN.md contract).
  */
-import { invalid, ValidationError } from '../../io/invalid.ts';
+import { invalid, namingSource, ValidationError } from '../../io/invalid.ts';
 import { parseKpointsText } from '../../io/kpointsFile.ts';
 import { autoPath, computeBands, type BandResult, type KPath } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { checkOutputPath, writeNamedFile, type Command, type CliIo } from '../io.ts';
-import { JSON_FLAG, OVERWRITE_FLAG, PARAMS_FLAG, SHEET_ARGUMENT } from '../commonFlags.ts';
+import { JSON_FLAG, OVERWRITE_FLAG, PARAMS_FLAG, PROGRESS_FLAG, SHEET_ARGUMENT } from '../commonFlags.ts';
 import { buildModel, resolveParameters } from '../parameters.ts';
+import { estimatedSeconds } from '../workEstimate.ts';
 import { resolveSheet } from '../sheetArgument.ts';
 import { ProgressLine } from '../progress.ts';
 
@@ -23,8 +24,17 @@ const spec: CommandSpec = {
     csv: { kind: 'text', placeholder: 'FILE', help: 'also write the bands as CSV' },
     overwrite: OVERWRITE_FLAG,
     json: JSON_FLAG,
+    progress: PROGRESS_FLAG,
   },
 };
+
+/**
+ * Each path label with its k-point in Cartesian Å⁻¹ of the sheet's own frame (x along its first cell vector): a
+ * label such as X of a rectangular cell lies along whichever axis the cell puts it, so the output says where.
+ */
+function labelsWithK(path: KPath): { label: string; index: number; k: [number, number] }[] {
+  return path.labels.map((l) => ({ ...l, k: [path.kpoints[2 * l.index], path.kpoints[2 * l.index + 1]] }));
+}
 
 /** Rows of a k-major Float64Array, rounded only by JSON's shortest round-trip printing. */
 function rows(values: Float64Array, count: number, width: number): number[][] {
@@ -53,7 +63,7 @@ function run(argv: readonly string[], io: CliIo): number {
   checkOutputPath(io, '--csv', flags.csv as string | undefined, flags.overwrite === true);
   if (flags.kpoints !== undefined && flags.path !== undefined) invalid('--kpoints', flags.kpoints, 'give either --kpoints or --path auto, not both');
   if (flags.kpoints === undefined && flags.path === undefined) invalid('--path', undefined, 'give --path auto or --kpoints FILE');
-  if (flags.points !== undefined && flags.path === undefined) invalid('--points', flags.points, 'only with --path auto');
+  if (flags.points !== undefined && flags.path === undefined) invalid('--points', String(flags.points), 'only with --path auto');
   const sheet = resolveSheet(positionals.SHEET, io);
   const params = resolveParameters(flags.params as string | undefined, io);
 
@@ -76,12 +86,13 @@ function run(argv: readonly string[], io: CliIo): number {
     } catch {
       invalid('--kpoints', file, 'cannot read the file');
     }
-    kpoints = parseKpointsText(text, file);
+    kpoints = namingSource('the k-points file', file, () => parseKpointsText(text, file));
   }
   const count = kpoints.length / 2;
   const model = buildModel(sheet, params, io, { flag: path ? '--points' : '--kpoints', value: count, kpoints: (p) => p });
 
-  const progress = new ProgressLine(io.err, 'k-points');
+  const progress = new ProgressLine(io.err, 'k-points', { machine: flags.progress === true, job: 'bands' });
+  progress.estimate(estimatedSeconds(sheet.sheet, count), `${model.atoms} atoms at ${count} k-points`, { atoms: model.atoms, kpoints: count });
   const result = computeBands(model, kpoints, { onProgress: (done, total) => progress.update(done, done / total) });
   progress.done();
 
@@ -92,7 +103,7 @@ function run(argv: readonly string[], io: CliIo): number {
       energies: rows(result.energies, count, result.bands),
       sigma_weight: rows(result.sigmaWeight, count, result.bands),
     };
-    if (path) document.path = { labels: path.labels, distance: Array.from(path.distance), cell_type: path.cellType };
+    if (path) document.path = { labels: labelsWithK(path), distance: Array.from(path.distance), cell_type: path.cellType };
     document.parameters = params.name;
     document.sheet = sheet.label;
     io.out(`${JSON.stringify(document)}\n`);
@@ -104,6 +115,13 @@ function run(argv: readonly string[], io: CliIo): number {
       if (e > high) high = e;
     }
     io.out(`energies from ${low.toFixed(3)} to ${high.toFixed(3)} eV${path ? `; path ${path.labels.map((l) => l.label).join('–')} (${path.cellType} cell)` : ''}\n`);
+    if (path) {
+      // Where each label lies: x along the sheet's first cell vector, y perpendicular in its plane.
+      const seen = new Set<string>();
+      const places = labelsWithK(path).filter((l) => !seen.has(l.label) && seen.add(l.label))
+        .map((l) => `${l.label} (${l.k[0].toFixed(4)}, ${l.k[1].toFixed(4)})`);
+      io.out(`path points in Cartesian Å⁻¹ (kx along the first cell vector): ${places.join(', ')}\n`);
+    }
     if (flags.csv !== undefined) io.out(`wrote ${flags.csv}\n`);
   }
   return 0;

@@ -6,16 +6,16 @@ import { estimateHoleDensity } from '../../lattice/geometry.ts';
 import { holeDensity } from '../../lattice/pattern.ts';
 import { CONVERGENCE_TOLERANCE, DEFAULT_SMEARING, fillSpectrum, refinedSigmaBonding, type SigmaBondingResult } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
-import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
+import { JSON_FLAG, KSPACING_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, PROGRESS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
-import { MESH_WORK, resolveModel } from '../parameters.ts';
+import { announceMesh, meshChoiceOf, meshJson, meshWork, resolveModel } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
 
 const spec: CommandSpec = {
   name: 'bonding',
   summary: 'σ bonding states of a sheet — capacity and the doping that fills them — beside the electron-counting rule',
   positionals: [SHEET_ARGUMENT],
-  flags: { params: PARAMS_FLAG, mesh: MESH_FLAG, smearing: SMEARING_FLAG, json: JSON_FLAG },
+  flags: { params: PARAMS_FLAG, mesh: MESH_FLAG, kspacing: KSPACING_FLAG, smearing: SMEARING_FLAG, json: JSON_FLAG, progress: PROGRESS_FLAG },
 };
 
 const RULE_NOTE = 'counting rule δ = 8/(3(1 − η)) − 3: the classic estimate of the doping that just fills the in-plane σ bonding states; a rule of thumb, not a result';
@@ -39,18 +39,22 @@ function convergenceLines(analysis: SigmaBondingResult, meshes: number[], sugges
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  const { sheet, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io, MESH_WORK(flags));
+  const { sheet, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io, meshWork(flags));
+  const meshChoice = meshChoiceOf(flags, sheet.sheet);
   const smearing = (flags.smearing as number | undefined) ?? DEFAULT_SMEARING;
   const estimate = sheet.pattern ? undefined : estimateHoleDensity(sheet.sheet);
   const eta = sheet.pattern ? holeDensity(sheet.pattern) : estimate!.eta;
-  const progress = new ProgressLine(io.err, 'k-points');
-  // An explicit --mesh is kept as given; the default mesh is refined until the answer converges (within budget).
+  const progress = new ProgressLine(io.err, 'k-points', { machine: flags.progress === true, job: 'bonding' });
+  announceMesh(progress, sheet.sheet, meshChoice);
+  // A mesh the user chose (--mesh or --kspacing) is kept as given; the default one is refined until the answer
+  // converges (within a work budget).
+  const chosen = meshChoice.rule === 'mesh' || meshChoice.rule === 'kspacing';
   const { result: analysis, spectrum, meshes, suggestedMesh } = refinedSigmaBonding(model, {
     holeDensity: eta,
     holeDensityEstimated: estimate !== undefined && !estimate.exact,
     smearing,
-    mesh: flags.mesh as number | undefined,
-    refine: flags.mesh === undefined,
+    mesh: meshChoice.mesh,
+    refine: !chosen,
     onProgress: (done, total) => progress.update(done, done / total),
   });
   progress.done();
@@ -68,10 +72,11 @@ function run(argv: readonly string[], io: CliIo): number {
     const document: Record<string, unknown> = {
       sheet: sheet.label,
       parameters: analysis.parameters,
+      ...meshJson(meshChoice),
       mesh: analysis.mesh,
       smearing: analysis.smearing,
-      hole_density: eta,
-      hole_density_estimated: analysis.countingRule.estimated,
+      eta,
+      eta_estimated: analysis.countingRule.estimated,
       counting_rule: { doping: analysis.countingRule.doping, note: RULE_NOTE },
       sigma_filling: {
         kind: analysis.kind,
@@ -95,7 +100,7 @@ function run(argv: readonly string[], io: CliIo): number {
     ? `σ gap ${analysis.gap.lower.toFixed(3)} … ${analysis.gap.upper.toFixed(3)} eV (E* = ${analysis.energy.toFixed(3)}, mid-gap)`
     : `σ pseudogap at E* = ${analysis.energy.toFixed(3)} eV (σ DOS ${analysis.sigmaDosInterpolated.toFixed(4)} states/eV/atom, bands interpolated between mesh points)`;
   const lines = [
-    `${sheet.label}: ${model.atoms} atoms, η = ${eta.toFixed(4)}${analysis.countingRule.estimated ? ' (estimated from the geometry)' : ''}, parameters ${analysis.parameters}, ${analysis.mesh}×${analysis.mesh} mesh, σ = ${analysis.smearing} eV`,
+    `${sheet.label}: ${model.atoms} atoms, η = ${eta.toFixed(4)}${analysis.countingRule.estimated ? ' (estimated from the geometry)' : ''}, parameters ${analysis.parameters}, ${meshes.length > 1 ? `${analysis.mesh}×${analysis.mesh} mesh (refined from ${meshChoice.why})` : meshChoice.why}, Gaussian width ${analysis.smearing} eV`,
     ...convergenceLines(analysis, meshes, suggestedMesh),
     `  ${where}`,
     `  σ bonding capacity               ${f(analysis.sigmaCapacity)} electrons per atom`,

@@ -6,10 +6,14 @@ import { countRowKeys, countStructures, enumerateStructures, type CountRow, type
 import { invalid } from '../../io/invalid.ts';
 import { hnfRows, patternCell, patternToSheet } from '../../lattice/pattern.ts';
 import { periodicityMismatch, periodicityOf, reducedPeriodicity } from '../../lattice/periodicity.ts';
-import { parseArgs, type CommandSpec } from '../args.ts';
-import { JSON_FLAG } from '../commonFlags.ts';
+import { parseArgs, rangeText, type CommandSpec } from '../args.ts';
+import { JSON_FLAG, PROGRESS_FLAG } from '../commonFlags.ts';
+import { estimateEnumerate, expectedAt } from '../enumerateEstimate.ts';
 import type { Command, CliIo } from '../io.ts';
-import { ProgressLine } from '../progress.ts';
+import { ProgressLine, readableBytes, readableSeconds } from '../progress.ts';
+
+/** Largest listing written without --allow-large-output (estimated bytes on stdout). */
+export const MAX_OUTPUT_BYTES = 250e6;
 
 /** Largest cell the command accepts; counts grow roughly like C(N, k)/(12N), so past this a run takes hours. */
 export const MAX_SITES = 64;
@@ -31,6 +35,8 @@ const spec: CommandSpec = {
     'counts-only': { kind: 'switch', help: 'count without listing (memory stays flat)' },
     jsonl: { kind: 'switch', help: 'one JSON object per structure per line and nothing else (shard outputs concatenate with cat)' },
     json: JSON_FLAG,
+    'allow-large-output': { kind: 'switch', help: `list even when the output is estimated above ${MAX_OUTPUT_BYTES / 1e6} MB (refused by default)` },
+    progress: PROGRESS_FLAG,
   },
 };
 
@@ -68,25 +74,19 @@ function cellFilter(cell: number[] | undefined, tolerance: number[] | undefined)
 /** Most structures a run may be expected to produce before it is refused (about an hour at 1e6 per second). */
 export const MAX_EXPECTED_STRUCTURES = 4e9;
 
-/**
- * Expected number of structures in the range, to refuse runs that would not end: σ(N)·C(N, k)/(12N) per (N, k)
- * — the σ(N) supercells of index N, each with C(N, k) labelings, up to the 12 operations and N translations (the
- * leading term of Burnside's count) — times the chance exp(−3k²/N) that k random holes have no nearest-neighbour
- * pair (3N bonds, each joining two holes with probability (k/N)²) when --isolated. An order of magnitude only.
- */
+/** Expected number of structures in the range (enumerateEstimate.ts): refuses runs that would not end. */
 export function expectedStructures(sites: [number, number], holes: [number, number], isolated: boolean): number {
   let total = 0;
-  for (let n = sites[0]; n <= sites[1]; n++) {
-    let divisorSum = 0;
-    for (let d = 1; d <= n; d++) if (n % d === 0) divisorSum += d;
-    let binomial = 1; // C(n, k), built up from k = 0
-    for (let k = 0; k <= Math.min(holes[1], n); k++) {
-      if (k > 0) binomial = (binomial * (n - k + 1)) / k;
-      if (k < holes[0]) continue;
-      total += ((divisorSum * binomial) / (12 * n)) * (isolated ? Math.exp((-3 * k * k) / n) : 1);
-    }
-  }
+  for (let n = sites[0]; n <= sites[1]; n++) for (let k = holes[0]; k <= Math.min(holes[1], n); k++) total += expectedAt(n, k, isolated);
   return total;
+}
+
+/** Why a range has no (sites, holes) row at all, for the user. */
+function whyNoRows(options: EnumerateOptions): string {
+  const n2 = options.sites[1];
+  const [k1] = options.holes;
+  if (k1 > n2) return `a cell of N sites holds at most N holes, and --holes starts at ${k1} while --sites ends at ${n2}`;
+  return `no hole density k/N of these ranges lies within --eta ${rangeText(options.holeDensity ?? [0, 1])}`;
 }
 
 function countTable(rows: readonly CountRow[]): string {
@@ -103,10 +103,10 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   if (!flags.holes) invalid('--holes', undefined, 'required, e.g. --holes 1-3');
   const expected = expectedStructures(flags.sites as [number, number], flags.holes as [number, number], flags.isolated === true);
   if (expected > MAX_EXPECTED_STRUCTURES) {
-    invalid('--sites', (flags.sites as number[]).join('-'), `about ${expected.toExponential(1)} structures with these --holes; narrow the ranges, add --isolated, or split the job with --shard`);
+    invalid('--sites', rangeText(flags.sites as number[]), `about ${expected.toExponential(1)} structures with these --holes; narrow the ranges, add --isolated, or split the job with --shard`);
   }
   const bond = (flags.bond as number | undefined) ?? 1.69;
-  const progress = new ProgressLine(io.err, 'labelings');
+  const progress = new ProgressLine(io.err, 'labelings', { machine: flags.progress === true, job: 'enumerate' });
   const options: EnumerateOptions = {
     sites: flags.sites as [number, number],
     holes: flags.holes as [number, number],
@@ -121,8 +121,25 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const jsonl = flags.jsonl === true;
   if (json && jsonl) invalid('--jsonl', '--jsonl', 'give --json or --jsonl, not both');
   if (jsonl && flags['counts-only']) invalid('--jsonl', '--jsonl', 'lists structures; with --counts-only use --json');
-  if (flags['cell-tolerance'] !== undefined && flags.cell === undefined) invalid('--cell-tolerance', flags['cell-tolerance'], 'only with --cell');
+  if (flags['cell-tolerance'] !== undefined && flags.cell === undefined) invalid('--cell-tolerance', (flags['cell-tolerance'] as number[]).join(','), 'only with --cell');
   const fits = cellFilter(flags.cell as number[] | undefined, flags['cell-tolerance'] as number[] | undefined);
+
+  if (countRowKeys(options).length === 0) {
+    const why = whyNoRows(options);
+    if (jsonl) return 0;
+    io.out(json ? `${JSON.stringify({ counts: [], structures: [], note: `none: ${why}` })}\n` : `none: ${why}\n`);
+    return 0;
+  }
+  const output = flags['counts-only'] ? 'counts' : json || jsonl ? 'json' : 'text';
+  const estimate = estimateEnumerate(options, output);
+  if (output !== 'counts' && estimate.bytes > MAX_OUTPUT_BYTES && flags['allow-large-output'] !== true) {
+    invalid('--sites', rangeText(flags.sites as number[]), `about ${readableBytes(estimate.bytes)} of output or more (about ${estimate.structures.toExponential(1)} structures, ${readableSeconds(estimate.seconds)}); count them with --counts-only, narrow --sites or --holes, add --isolated, split the job with --shard, or add --allow-large-output`);
+  }
+  progress.estimate(
+    estimate.seconds,
+    `about ${estimate.structures.toExponential(1)} structures${output === 'counts' ? '' : `, about ${readableBytes(estimate.bytes)} of output`}`,
+    { structures: Math.round(estimate.structures), bytes: Math.round(estimate.bytes) },
+  );
 
   if (flags['counts-only'] && !fits) {
     const counts = countStructures(options);

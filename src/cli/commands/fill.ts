@@ -4,8 +4,8 @@
 import { fill, type FillResult } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import type { Command, CliIo } from '../io.ts';
-import { DOPING_FLAG, JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
-import { MESH_WORK, resolveModel } from '../parameters.ts';
+import { DOPING_FLAG, JSON_FLAG, KSPACING_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, PROGRESS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
+import { announceMesh, meshChoiceOf, meshJson, meshWork, resolveModel } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
 
 const spec: CommandSpec = {
@@ -16,8 +16,10 @@ const spec: CommandSpec = {
     params: PARAMS_FLAG,
     doping: DOPING_FLAG,
     mesh: MESH_FLAG,
+    kspacing: KSPACING_FLAG,
     smearing: SMEARING_FLAG,
     json: JSON_FLAG,
+    progress: PROGRESS_FLAG,
   },
 };
 
@@ -36,11 +38,13 @@ function gapText(result: FillResult): string {
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  const { sheet, params, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io, MESH_WORK(flags));
-  const progress = new ProgressLine(io.err, 'k-points');
+  const { sheet, params, model } = resolveModel(positionals.SHEET, flags.params as string | undefined, io, meshWork(flags));
+  const meshChoice = meshChoiceOf(flags, sheet.sheet);
+  const progress = new ProgressLine(io.err, 'k-points', { machine: flags.progress === true, job: 'fill' });
+  announceMesh(progress, sheet.sheet, meshChoice);
   const result = fill(model, {
     doping: flags.doping as number | undefined,
-    mesh: flags.mesh as number | undefined,
+    mesh: meshChoice.mesh,
     smearing: flags.smearing as number | undefined,
     onProgress: (done, total) => progress.update(done, done / total),
   });
@@ -53,7 +57,7 @@ function run(argv: readonly string[], io: CliIo): number {
       pi_electrons_per_atom: result.piElectronsPerAtom,
       band_energy_per_atom: result.bandEnergyPerAtom,
       doping: result.doping,
-      mesh: result.mesh,
+      ...meshJson(meshChoice),
       smearing: result.smearing,
       parameters: result.parameters,
       sheet: sheet.label,
@@ -66,7 +70,7 @@ function run(argv: readonly string[], io: CliIo): number {
     io.out(`${JSON.stringify(document)}\n`);
   } else {
     const lines = [
-      `${sheet.label}: ${model.atoms} atoms, parameters ${result.parameters}, δ = ${result.doping} e/atom, ${result.mesh}×${result.mesh} mesh, σ = ${result.smearing} eV`,
+      `${sheet.label}: ${model.atoms} atoms, parameters ${result.parameters}, δ = ${result.doping} e/atom, ${meshChoice.why}, Gaussian width ${result.smearing} eV`,
       `Fermi level            ${result.fermi.toFixed(4)} eV${gapText(result)}`,
       `electrons per atom     ${result.electronsPerAtom.toFixed(4)}  (σ ${result.sigmaElectronsPerAtom.toFixed(4)}, π ${result.piElectronsPerAtom.toFixed(4)})`,
       `band energy per atom   ${result.bandEnergyPerAtom.toFixed(4)} eV`,

@@ -36,8 +36,8 @@ function run(argv: readonly string[], io: CliIo): number {
   const document: Record<string, unknown> = {
     sheet: label,
     atoms: sheet.atoms.length,
-    hole_density: eta,
-    hole_density_estimated: pattern === undefined,
+    eta,
+    eta_estimated: pattern === undefined,
     lattice: { a: cell.a, b: cell.b, gamma_deg: cell.gammaDeg },
     coordination: Object.fromEntries(histogram.flatMap((count, c) => (count ? [[String(c), count]] : []))),
   };
@@ -45,7 +45,8 @@ function run(argv: readonly string[], io: CliIo): number {
     document.pattern = { bond: pattern.bond, supercell: hnfRows(pattern.supercell), vacancies: pattern.vacancies, sites: pattern.supercell.a * pattern.supercell.c };
     document.canonical = canonical;
     if (phase) document.phase = phase;
-    document.holes = { hexagonal: hexagonal.length, clusters: clusters.map((c) => ({ size: c.size, periodic: c.periodic })) };
+    // `holes` is a count in every output (enumerate); the shapes of the holes are their own key.
+    document.hole_clusters = { hexagonal: hexagonal.length, clusters: clusters.map((c) => ({ size: c.size, periodic: c.periodic })) };
   }
   if (flags.json) {
     io.out(`${JSON.stringify(document)}\n`);

@@ -13,7 +13,7 @@ import type { SpectraData } from '../../figures/types.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { DOPING_FLAG, JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, OVERWRITE_FLAG, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
 import { checkOutputPath, writeNamedFile, type Command, type CliIo } from '../io.ts';
-import { MESH_WORK, buildModel, resolveParameters } from '../parameters.ts';
+import { buildModel, meshChoiceOf, meshWork, resolveParameters } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
 import { rasterise } from '../raster.ts';
 import { resolveSheet } from '../sheetArgument.ts';
@@ -75,12 +75,12 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     svg = sheetFigure(sheetData, options);
   } else {
     // The smallest cell of a pattern (what the sheet figure's states refer to), after the work guard.
-    buildModel({ label: source.label, sheet: sheetData.sheet }, params, io, MESH_WORK(flags));
+    buildModel({ label: source.label, sheet: sheetData.sheet }, params, io, meshWork(flags)(sheetData.sheet));
     const progress = new ProgressLine(io.err, 'k-points');
     spectra = prepareSpectra(sheetData.sheet, params, {
       label: source.label,
       doping: flags.doping as number | undefined,
-      mesh: flags.mesh as number | undefined,
+      mesh: meshChoiceOf(flags, sheetData.sheet).mesh,
       smearing: flags.smearing as number | undefined,
       pathPoints: flags.points as number | undefined,
       onProgress: (done, total) => progress.update(done, done / total),

@@ -30,7 +30,8 @@ function run(argv: readonly string[], io: CliIo): number {
   }));
   const params = PARAMETER_PRESETS.map((p) => ({ name: p.name, source: p.source }));
   if (flags.json) {
-    io.out(`${JSON.stringify({ sheets, parameters: params })}\n`);
+    // `parameters` names the one set a result used in every other output; the list of sets is its own key.
+    io.out(`${JSON.stringify({ sheets, parameter_sets: params })}\n`);
     return 0;
   }
   const lines = ['sheets:'];

@@ -4,13 +4,15 @@
 import { enumerateStructures, type EnumerateOptions } from '../../enumerate/index.ts';
 import { invalid } from '../../io/invalid.ts';
 import { hnfRows, patternToSheet } from '../../lattice/pattern.ts';
-import { DEFAULT_MESH, rankByBandEnergy } from '../../tb/index.ts';
-import { parseArgs, type CommandSpec } from '../args.ts';
-import { DOPING_FLAG, JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SMEARING_FLAG } from '../commonFlags.ts';
+import { reducedSheet } from '../../lattice/reducedCell.ts';
+import { DEFAULT_KSPACING, rankByBandEnergy } from '../../tb/index.ts';
+import { parseArgs, rangeText, type CommandSpec } from '../args.ts';
+import { DOPING_FLAG, JSON_FLAG, KSPACING_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, PROGRESS_FLAG, SMEARING_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
-import { resolveParameters } from '../parameters.ts';
+import { meshChoiceOf, resolveParameters } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
 import { estimatedSeconds, MAX_ESTIMATED_SECONDS } from '../workEstimate.ts';
+import { readableSeconds } from '../progress.ts';
 
 /** Most patterns one ranking solves: each needs a full mesh, about 0.1 s for an 8-atom cell at M = 36. */
 export const MAX_RANKED = 2000;
@@ -26,9 +28,11 @@ const spec: CommandSpec = {
     eta: { kind: 'numberRange', min: 0, max: 1, placeholder: 'η1-η2', help: 'only hole densities in this range' },
     params: PARAMS_FLAG,
     doping: DOPING_FLAG,
-    mesh: MESH_FLAG,
+    mesh: { ...MESH_FLAG, help: `the same Γ-centred M×M k-mesh for every cell (default: --kspacing ${DEFAULT_KSPACING}, the same density for every cell)` },
+    kspacing: KSPACING_FLAG,
     smearing: SMEARING_FLAG,
     json: JSON_FLAG,
+    progress: PROGRESS_FLAG,
   },
 };
 
@@ -36,23 +40,40 @@ function run(argv: readonly string[], io: CliIo): number {
   const { flags } = parseArgs(spec, argv);
   if (!flags.sites) invalid('--sites', undefined, 'required, e.g. --sites 3-12');
   if (!flags.holes) invalid('--holes', undefined, 'required, e.g. --holes 1-2');
+  if (flags.mesh !== undefined && flags.kspacing !== undefined) invalid('--kspacing', String(flags.kspacing), 'give --mesh or --kspacing, not both');
+  const sitesTyped = rangeText(flags.sites as number[]);
   const params = resolveParameters(flags.params as string | undefined, io);
   const options: EnumerateOptions = { sites: flags.sites as [number, number], holes: flags.holes as [number, number], isolated: flags.isolated === true };
   if (flags.eta) options.holeDensity = flags.eta as [number, number];
   const patterns: { name: string; pattern: import('../../lattice/sheet.ts').Pattern }[] = [];
   for (const structure of enumerateStructures(options)) {
     if (structure.sites === structure.holes) continue; // no atoms left to solve
-    if (patterns.length >= MAX_RANKED) invalid('--sites', `${flags.sites}`, `more than ${MAX_RANKED} patterns to rank; narrow --sites, --holes or --eta`);
+    if (patterns.length >= MAX_RANKED) invalid('--sites', sitesTyped, `more than ${MAX_RANKED} patterns to rank; narrow --sites, --holes or --eta`);
     const name = structure.phase ?? `N${structure.sites}k${structure.holes}:${JSON.stringify(hnfRows(structure.pattern.supercell))}${JSON.stringify(structure.pattern.vacancies)}`;
     patterns.push({ name, pattern: structure.pattern });
   }
-  const mesh = (flags.mesh as number | undefined) ?? DEFAULT_MESH;
-  const seconds = patterns.reduce((sum, p) => sum + estimatedSeconds(patternToSheet(p.pattern), mesh * mesh), 0);
-  if (seconds > MAX_ESTIMATED_SECONDS) invalid('--mesh', mesh, `about ${(seconds / 3600).toFixed(1)} h for ${patterns.length} patterns; use a smaller mesh or narrow --sites, --holes or --eta`);
-  const progress = new ProgressLine(io.err, 'patterns');
+  if (patterns.length === 0) {
+    const why = `no pattern with atoms left for --sites ${sitesTyped} --holes ${rangeText(flags.holes as number[])}${flags.isolated ? ' --isolated' : ''}${flags.eta ? ` --eta ${rangeText(flags.eta as number[])}` : ''}`;
+    if (flags.json) io.out(`${JSON.stringify({ parameters: params.name, note: why, groups: [] })}\n`);
+    else io.out(`none: ${why}\n`);
+    return 0;
+  }
+  // Each pattern is solved in its reduced cell (ranking.ts); the estimate uses the same cell and mesh.
+  let seconds = 0;
+  for (const p of patterns) {
+    const sheet = reducedSheet(patternToSheet(p.pattern));
+    const m = meshChoiceOf(flags, sheet, true).mesh;
+    seconds += estimatedSeconds(sheet, m * m);
+  }
+  const flag = flags.mesh !== undefined ? '--mesh' : '--kspacing';
+  const value = flags.mesh ?? flags.kspacing ?? DEFAULT_KSPACING;
+  if (seconds > MAX_ESTIMATED_SECONDS) invalid(flag, String(value), `about ${readableSeconds(seconds)} for ${patterns.length} patterns; use ${flags.mesh !== undefined ? 'a smaller mesh' : 'a larger spacing'} or narrow --sites, --holes or --eta`);
+  const progress = new ProgressLine(io.err, 'patterns', { machine: flags.progress === true, job: 'rank' });
+  progress.estimate(seconds, `${patterns.length} patterns at ${flags.mesh !== undefined ? `mesh ${flags.mesh}` : `k-spacing ${value} Å⁻¹`}`, { patterns: patterns.length });
   const ranking = rankByBandEnergy(patterns, params, {
     doping: flags.doping as number | undefined,
     mesh: flags.mesh as number | undefined,
+    kspacing: flags.kspacing as number | undefined,
     smearing: flags.smearing as number | undefined,
     onProgress: (done, total) => progress.update(done, done / total),
   });
@@ -61,17 +82,20 @@ function run(argv: readonly string[], io: CliIo): number {
     io.out(`${JSON.stringify({
       parameters: ranking.parameters,
       note: ranking.note,
+      mesh_rule: flags.mesh !== undefined ? 'mesh' : flags.kspacing !== undefined ? 'kspacing' : 'default_kspacing',
+      ...(flags.mesh === undefined ? { kspacing: value } : {}),
       groups: ranking.groups.map((g) => ({
-        hole_density: g.holeDensity,
-        patterns: g.patterns.map((p) => ({ name: p.name, fermi: p.fermi, band_energy_per_atom: p.bandEnergyPerAtom, above_lowest: p.aboveLowest })),
+        eta: g.holeDensity,
+        patterns: g.patterns.map((p) => ({ name: p.name, fermi: p.fermi, band_energy_per_atom: p.bandEnergyPerAtom, above_lowest: p.aboveLowest, mesh: p.mesh })),
       })),
     })}\n`);
     return 0;
   }
-  const lines = [`parameters ${ranking.parameters}; ${ranking.note}`];
+  const density = flags.mesh !== undefined ? `mesh ${flags.mesh}×${flags.mesh} for every cell (given)` : `k-spacing ${value} Å⁻¹ for every cell (${flags.kspacing !== undefined ? 'given' : 'default'}; each in its reduced cell, mesh side shown per pattern)`;
+  const lines = [`parameters ${ranking.parameters}; ${density}; ${ranking.note}`];
   for (const group of ranking.groups) {
     lines.push(`η = ${group.holeDensity.toFixed(4)}`);
-    for (const p of group.patterns) lines.push(`  ${p.aboveLowest.toFixed(4).padStart(9)} eV/atom above lowest   E_F ${p.fermi.toFixed(3)}   ${p.name}`);
+    for (const p of group.patterns) lines.push(`  ${p.aboveLowest.toFixed(4).padStart(9)} eV/atom above lowest   E_F ${p.fermi.toFixed(3)}   mesh ${String(p.mesh).padStart(3)}   ${p.name}`);
   }
   lines.push(MODEL_CAVEAT);
   io.out(`${lines.join('\n')}\n`);

@@ -5,9 +5,9 @@
 import { invalid } from '../../io/invalid.ts';
 import { FermiSolver, fillSpectrum } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
-import { JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
+import { JSON_FLAG, KSPACING_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG, PROGRESS_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
-import { resolveSpectrum } from '../parameters.ts';
+import { meshJson, resolveSpectrum } from '../parameters.ts';
 
 /** Most dopings one scan evaluates. */
 export const MAX_SCAN_STEPS = 10_000;
@@ -20,8 +20,10 @@ const spec: CommandSpec = {
     params: PARAMS_FLAG,
     dopings: { kind: 'numberList', min: -3, max: 5, length: 3, placeholder: 'δ1,δ2,step', help: 'from δ1 to δ2 in steps (default -1,1,0.1); each δ strictly between −3 and 5' },
     mesh: MESH_FLAG,
+    kspacing: KSPACING_FLAG,
     smearing: SMEARING_FLAG,
     json: JSON_FLAG,
+    progress: PROGRESS_FLAG,
   },
 };
 
@@ -34,7 +36,7 @@ function run(argv: readonly string[], io: CliIo): number {
   if (from <= -3 || to >= 5) invalid('--dopings', shown, 'every δ must lie strictly between −3 and 5 (0 to 8 electrons per atom)');
   const steps = Math.floor((to - from) / step + 1e-9) + 1;
   if (steps > MAX_SCAN_STEPS) invalid('--dopings', shown, `${steps} dopings; at most ${MAX_SCAN_STEPS}`);
-  const { sheet, model, spectrum, smearing } = resolveSpectrum(positionals.SHEET, flags, io);
+  const { sheet, model, spectrum, smearing, meshChoice } = resolveSpectrum(positionals.SHEET, flags, io, 'scan');
   const solver = new FermiSolver(spectrum);
   const rows = [];
   for (let i = 0; i < steps; i++) {
@@ -46,7 +48,7 @@ function run(argv: readonly string[], io: CliIo): number {
     io.out(`${JSON.stringify({
       sheet: sheet.label,
       parameters: spectrum.parameters,
-      mesh: spectrum.mesh,
+      ...meshJson(meshChoice),
       smearing,
       rows: rows.map((r) => ({
         doping: r.doping,
@@ -61,7 +63,7 @@ function run(argv: readonly string[], io: CliIo): number {
     return 0;
   }
   const lines = [
-    `${sheet.label}: parameters ${spectrum.parameters}, ${spectrum.mesh}×${spectrum.mesh} mesh, σ = ${smearing} eV`,
+    `${sheet.label}: parameters ${spectrum.parameters}, ${meshChoice.why}, Gaussian width ${smearing} eV`,
     '      δ     E_F (eV)    σ e/atom   π e/atom   band energy (eV/atom)',
   ];
   for (const r of rows) {
