@@ -11,15 +11,17 @@ import { dosCommand } from './commands/dos.ts';
 import { enumerateCommand } from './commands/enumerate.ts';
 import { exportCommand } from './commands/export.ts';
 import { fillCommand } from './commands/fill.ts';
+import { fitCommand } from './commands/fit.ts';
 import { geometryCommand } from './commands/geometry.ts';
 import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
 import { scanCommand } from './commands/scan.ts';
+import { transferCommand } from './commands/transfer.ts';
 import type { CliIo, Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
-  presetsCommand, benchCommand,
+  transferCommand, fitCommand, presetsCommand, benchCommand,
 ];
 
 function overview(): string {
