@@ -13,6 +13,7 @@ import { exportCommand } from './commands/export.ts';
 import { fillCommand } from './commands/fill.ts';
 import { fitCommand } from './commands/fit.ts';
 import { geometryCommand } from './commands/geometry.ts';
+import { metalsCommand } from './commands/metals.ts';
 import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
 import { scanCommand } from './commands/scan.ts';
@@ -21,7 +22,7 @@ import type { CliIo, Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
-  transferCommand, fitCommand, presetsCommand, benchCommand,
+  transferCommand, fitCommand, metalsCommand, presetsCommand, benchCommand,
 ];
 
 function overview(): string {

@@ -6,3 +6,5 @@ export * from './coincidence.ts';
 export * from './defaults.ts';
 export * from './alignment.ts';
 export * from './transfer.ts';
+export * from './observed.ts';
+export * from './dopingMap.ts';

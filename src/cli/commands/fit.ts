@@ -1,15 +1,12 @@
 /**
  * `lacuna fit`: coincidence fits of a sheet on a metal surface, smallest cell first (DESIGN.md contract).
  */
-import { invalid } from '../../io/invalid.ts';
 import { FIT_DEFAULTS, coincidenceFits } from '../../substrate/coincidence.ts';
-import { requireSubstrate, SUBSTRATES } from '../../substrate/substrates.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG, SHEET_ARGUMENT } from '../commonFlags.ts';
 import type { CliIo, Command } from '../io.ts';
 import { resolveSheet } from '../sheetArgument.ts';
-import { SUBSTRATE_CAVEAT } from '../substrateCaveat.ts';
-import { SUBSTRATE_FLAG } from './transfer.ts';
+import { SUBSTRATE_CAVEAT, SUBSTRATE_FLAG, substrateOf } from '../substrateFlags.ts';
 
 /** Largest coincidence cell the CLI searches (substrate atoms): the search grows about as the cube of it. */
 export const MAX_FIT_SITES = 120;
@@ -28,8 +25,7 @@ const spec: CommandSpec = {
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  if (flags.substrate === undefined) invalid('--substrate', undefined, `required; substrates: ${SUBSTRATES.map((s) => s.name).join(', ')}`);
-  const substrate = requireSubstrate(flags.substrate as string, '--substrate');
+  const substrate = substrateOf(flags);
   const sheet = resolveSheet(positionals.SHEET, io);
   const maxStrain = (flags['max-strain'] as number | undefined) ?? FIT_DEFAULTS.maxStrain;
   const maxSites = (flags['max-sites'] as number | undefined) ?? FIT_DEFAULTS.maxSites;

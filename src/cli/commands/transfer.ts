@@ -6,18 +6,12 @@ import { estimateHoleDensity } from '../../lattice/geometry.ts';
 import { holeDensity } from '../../lattice/pattern.ts';
 import { cellMetrics } from '../../lattice/reducedCell.ts';
 import { ALIGNMENT_DEFAULTS } from '../../substrate/defaults.ts';
-import { requireSubstrate, SUBSTRATES } from '../../substrate/substrates.ts';
-import { alignmentParameters, electronTransfer } from '../../substrate/transfer.ts';
+import { electronTransfer } from '../../substrate/transfer.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG, MESH_FLAG, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
 import type { CliIo, Command } from '../io.ts';
 import { resolveSpectrum } from '../parameters.ts';
-import { invalid } from '../../io/invalid.ts';
-import { SUBSTRATE_CAVEAT } from '../substrateCaveat.ts';
-
-export const SUBSTRATE_FLAG = {
-  kind: 'text', placeholder: 'NAME', help: `metal surface: ${SUBSTRATES.map((s) => s.name).join(', ')}; required`,
-} as const;
+import { ALIGNMENT_FLAGS, ALIGNMENT_SCOPE, SUBSTRATE_CAVEAT, SUBSTRATE_FLAG, alignmentJson, alignmentOf, substrateOf } from '../substrateFlags.ts';
 
 const spec: CommandSpec = {
   name: 'transfer',
@@ -28,10 +22,7 @@ const spec: CommandSpec = {
     params: PARAMS_FLAG,
     mesh: MESH_FLAG,
     smearing: SMEARING_FLAG,
-    'sheet-work-function': { kind: 'number', min: 1, max: 8, placeholder: 'W_S', help: `work function of the free sheet in eV (default ${ALIGNMENT_DEFAULTS.sheetWorkFunction.value}, an estimate)` },
-    dipole: { kind: 'number', min: -5, max: 5, placeholder: 'Δc', help: `interface dipole from the chemical interaction in eV (default ${ALIGNMENT_DEFAULTS.dipole.value}, graphene's)` },
-    distance: { kind: 'number', min: 0.5, max: 10, placeholder: 'd', help: `sheet–metal distance in Å (default ${ALIGNMENT_DEFAULTS.distance.value}, graphene's)` },
-    d0: { kind: 'number', min: 0, max: 10, placeholder: 'd0', help: `offset of the interface charge layer in Å, d ≥ d0 (default ${ALIGNMENT_DEFAULTS.d0.value}, graphene's)` },
+    ...ALIGNMENT_FLAGS,
     json: JSON_FLAG,
   },
 };
@@ -40,14 +31,8 @@ const RULE_NOTE = 'counting rule δ = 8/(3(1 − η)) − 3: the doping that jus
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
-  if (flags.substrate === undefined) invalid('--substrate', undefined, `required; substrates: ${SUBSTRATES.map((s) => s.name).join(', ')}`);
-  const substrate = requireSubstrate(flags.substrate as string, '--substrate');
-  const parameters = alignmentParameters({
-    sheetWorkFunction: flags['sheet-work-function'] as number | undefined,
-    dipole: flags.dipole as number | undefined,
-    distance: flags.distance as number | undefined,
-    d0: flags.d0 as number | undefined,
-  }, { distance: '--distance', d0: '--d0' });
+  const substrate = substrateOf(flags);
+  const parameters = alignmentOf(flags);
   const { sheet, spectrum, smearing } = resolveSpectrum(positionals.SHEET, flags, io);
   const estimate = sheet.pattern ? undefined : estimateHoleDensity(sheet.sheet);
   const eta = sheet.pattern ? holeDensity(sheet.pattern) : estimate!.eta;
@@ -72,13 +57,7 @@ function run(argv: readonly string[], io: CliIo): number {
         preferred_eta: result.preferredHoleDensity,
       },
       substrate: { name: substrate.name, work_function: substrate.workFunction, title: substrate.title, work_function_source: substrate.workFunctionSource },
-      model: {
-        sheet_work_function: parameters.sheetWorkFunction,
-        dipole: parameters.dipole,
-        distance: parameters.distance,
-        d0: parameters.d0,
-        defaults: Object.fromEntries(Object.entries(ALIGNMENT_DEFAULTS).map(([key, value]) => [key === 'sheetWorkFunction' ? 'sheet_work_function' : key, value])),
-      },
+      model: alignmentJson(parameters),
       sheet: sheet.label,
       parameters: spectrum.parameters,
       mesh: spectrum.mesh,
@@ -103,7 +82,7 @@ function run(argv: readonly string[], io: CliIo): number {
     `  d = ${parameters.distance} Å${given('distance', 'distance')}`,
     `  d0 = ${parameters.d0} Å${given('d0', 'd0')}`,
     `  balance W_S + Δc − W_M = ${a.drivingPotential.toFixed(3)} eV = ΔE_F ${a.fermiShift.toFixed(3)} + α·q·(d − d0) ${a.capacitorStep.toFixed(3)} eV`,
-    'The alignment model describes weak (physisorption-like) coupling; where the sheet bonds to the metal (as B on Al(111) is reported to) it misses the chemistry and underestimates the transfer.',
+    ALIGNMENT_SCOPE,
     SUBSTRATE_CAVEAT,
   ];
   io.out(`${lines.join('\n')}\n`);
