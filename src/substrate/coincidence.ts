@@ -9,7 +9,8 @@
  * and θ the rotation of its polar decomposition (src/substrate/stretch.ts); the map from the turned sheet,
  * F·R_θ⁻¹, is then a pure stretch with the same principal stretches.
  *
- * Listed once: a fit whose map F equals that of a smaller fit (it is a supercell of that coincidence), and fits
+ * Listed once: not at all a fit that is a supercell of a smaller coincidence with the same map (some sheet lattice
+ * point inside its sheet supercell already lands on a substrate lattice point), and once fits
  * related by a symmetry of the two lattices — the substrate's rotations by 60° and its mirror, the sheet's own
  * rotations and mirrors (src/substrate/sheetSymmetry.ts) — which turn θ into θ + 60°, θ + ρ and −θ − 2β. The
  * representative kept is the one with the smallest angle in [0°, 360°). Ranked by area, then strain.
@@ -28,6 +29,8 @@ export interface FitOptions {
   maxStrain?: number;
   /** Largest coincidence cell, in substrate surface atoms (default 30). */
   maxSites?: number;
+  /** Most fits returned (default 500). */
+  maxFits?: number;
 }
 
 export interface CoincidenceFit {
@@ -55,7 +58,8 @@ export interface CoincidenceFit {
 
 const DEFAULT_MAX_STRAIN = 0.03;
 const DEFAULT_MAX_SITES = 30;
-export const FIT_DEFAULTS = { maxStrain: DEFAULT_MAX_STRAIN, maxSites: DEFAULT_MAX_SITES } as const;
+const DEFAULT_MAX_FITS = 500;
+export const FIT_DEFAULTS = { maxStrain: DEFAULT_MAX_STRAIN, maxSites: DEFAULT_MAX_SITES, maxFits: DEFAULT_MAX_FITS } as const;
 
 /** The unimodular 2×2 integer matrices with entries in {−1, 0, 1} and determinant +1, row-major. */
 const UNIMODULAR: readonly (readonly [number, number, number, number])[] = (() => {
@@ -68,11 +72,15 @@ const UNIMODULAR: readonly (readonly [number, number, number, number])[] = (() =
 
 /** A supercell in its right-handed reduced basis: integer rows in the parent basis and Cartesian vectors. */
 interface Reduced {
+  hnf: Hnf;
   rows: IntRows;
   u: Vec2;
   v: Vec2;
-  index: number;
+  /** |u| and |v|: the two successive minima of the lattice (Å). */
+  shortest: number;
+  second: number;
 }
+
 
 /** Rows [[a, 0], [b, c]] of an HNF turned into the right-handed reduced basis (same lattice). */
 function reduced(h: Hnf, cell: [Vec2, Vec2]): Reduced {
@@ -89,7 +97,27 @@ function reduced(h: Hnf, cell: [Vec2, Vec2]): Reduced {
     [m00 * h.a + m01 * h.b + 0, m01 * h.c + 0],
     [m10 * h.a + m11 * h.b + 0, m11 * h.c + 0],
   ];
-  return { rows, u: vec(rows[0]), v: vec(rows[1]), index: h.a * h.c };
+  const u = vec(rows[0]);
+  const v = vec(rows[1]);
+  // Making the basis right-handed may have swapped u and v, so the minima are the smaller and larger length.
+  const lengths = [Math.hypot(u[0], u[1]), Math.hypot(v[0], v[1])].sort((x, y) => x - y);
+  return { hnf: h, rows, u, v, shortest: lengths[0], second: lengths[1] };
+}
+
+function sortedByShortest(list: Reduced[]): Reduced[] {
+  return list.sort((x, y) => x.shortest - y.shortest);
+}
+
+/** First index whose shortest vector is at least `length` (list sorted by it). */
+function lowerBound(list: readonly Reduced[], length: number): number {
+  let lo = 0;
+  let hi = list.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (list[mid].shortest < length) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
 }
 
 function reducedSupercells(index: number, cell: [Vec2, Vec2]): Reduced[] {
@@ -130,98 +158,124 @@ function moireCell(u: Vec2, v: Vec2): CoincidenceFit['moire'] {
   return { a, b, gammaDeg, angleDeg: angle };
 }
 
+/** A fit found at one level (one substrate cell size), before it is written out. */
+interface Found {
+  angleDeg: number;
+  strain: number;
+  major: number;
+  minor: number;
+  sheet: Reduced;
+  substrate: Reduced;
+  g: readonly [number, number, number, number];
+  cells: number;
+}
+
+/** True when no sheet lattice point inside the sheet supercell (other than 0) maps onto a substrate lattice point. */
+function primitive(found: Found, map: readonly number[], sheetCell: [Vec2, Vec2], substrateSpacing: number): boolean {
+  const { a, c } = found.sheet.hnf;
+  const [[ax, ay], [bx, by]] = sheetCell;
+  const s = substrateSpacing;
+  for (let j = 0; j < c; j++) {
+    for (let i = 0; i < a; i++) {
+      if (i === 0 && j === 0) continue;
+      const x = i * ax + j * bx, y = i * ay + j * by;
+      const fx = map[0] * x + map[1] * y, fy = map[2] * x + map[3] * y;
+      // Fractional in b1 = s(1, 0), b2 = s(1/2, √3/2): f2 = 2y/(√3 s), f1 = x/s − f2/2.
+      const f2 = (2 * fy) / (SQRT3 * s);
+      const f1 = fx / s - f2 / 2;
+      if (Math.abs(f1 - Math.round(f1)) < 1e-6 && Math.abs(f2 - Math.round(f2)) < 1e-6) return false;
+    }
+  }
+  return true;
+}
+
+function written(found: Found, sites: number, area: number): CoincidenceFit {
+  const [g00, g01, g10, g11] = found.g;
+  const m = found.substrate;
+  const p: Vec2 = [g00 * m.u[0] + g10 * m.v[0], g00 * m.u[1] + g10 * m.v[1]];
+  const q: Vec2 = [g01 * m.u[0] + g11 * m.v[0], g01 * m.u[1] + g11 * m.v[1]];
+  const fit: CoincidenceFit = {
+    angleDeg: found.angleDeg,
+    strain: found.strain,
+    stretches: [found.major, found.minor],
+    sheetSupercell: [[...found.sheet.rows[0]], [...found.sheet.rows[1]]],
+    substrateSupercell: [
+      [g00 * m.rows[0][0] + g10 * m.rows[1][0] + 0, g00 * m.rows[0][1] + g10 * m.rows[1][1] + 0],
+      [g01 * m.rows[0][0] + g11 * m.rows[1][0] + 0, g01 * m.rows[0][1] + g11 * m.rows[1][1] + 0],
+    ],
+    sites,
+    sheetCells: found.cells,
+    area,
+    moire: moireCell(p, q),
+  };
+  const w = wood(sites, fit.moire);
+  return w ? { ...fit, wood: w } : fit;
+}
+
 /**
  * Coincidence fits of `sheet` (its cell; its atoms for the symmetry) on a triangular substrate of
- * nearest-neighbour distance `substrateSpacing` (Å), best first: smallest area, then least strain.
+ * nearest-neighbour distance `substrateSpacing` (Å), best first: smallest area, then least strain. At most
+ * `maxFits` are returned (the search stops after the cell size at which that many are found).
  */
 export function coincidenceFits(sheet: Sheet, substrateSpacing: number, options: FitOptions = {}): CoincidenceFit[] {
   const maxStrain = options.maxStrain ?? DEFAULT_MAX_STRAIN;
   const maxSites = options.maxSites ?? DEFAULT_MAX_SITES;
+  const maxFits = options.maxFits ?? DEFAULT_MAX_FITS;
+  const { rotations, mirrors } = sheetSymmetry(sheet);
   const substrateCell: [Vec2, Vec2] = [[substrateSpacing, 0], [substrateSpacing / 2, (substrateSpacing * SQRT3) / 2]];
   const siteArea = (substrateSpacing * substrateSpacing * SQRT3) / 2;
   const [[ax, ay], [bx, by]] = sheet.cell;
   const sheetArea = Math.abs(ax * by - ay * bx);
   const sheetCells = new Map<number, Reduced[]>();
-  const candidates: CoincidenceFit[] = [];
-  for (let sites = 1; sites <= maxSites; sites++) {
+  const out: CoincidenceFit[] = [];
+  for (let sites = 1; sites <= maxSites && out.length < maxFits; sites++) {
     const area = sites * siteArea;
     // det F = product of the stretches lies in [(1 − s)², (1 + s)²].
     const low = Math.max(1, Math.ceil(area / ((1 + maxStrain) ** 2 * sheetArea) - 1e-9));
     const high = Math.floor(area / ((1 - maxStrain) ** 2 * sheetArea) + 1e-9);
     if (low > high) continue;
     const substrate = reducedSupercells(sites, substrateCell);
+    // One entry per symmetry orbit (sites, sheet cells, strain, canonical angle); null when not primitive.
+    const orbits = new Map<string, Found | null>();
     for (let cells = low; cells <= high; cells++) {
       let sheetSupercells = sheetCells.get(cells);
-      if (!sheetSupercells) sheetCells.set(cells, (sheetSupercells = reducedSupercells(cells, sheet.cell)));
-      for (const s of sheetSupercells) {
-        // U⁻¹ for columns u, v.
-        const det = s.u[0] * s.v[1] - s.u[1] * s.v[0];
-        const i00 = s.v[1] / det, i01 = -s.v[0] / det, i10 = -s.u[1] / det, i11 = s.u[0] / det;
-        for (const m of substrate) {
-          for (const [g00, g01, g10, g11] of UNIMODULAR) {
-            // Columns of V·G: the substrate vectors that the sheet's u and v map onto.
-            const p: Vec2 = [g00 * m.u[0] + g10 * m.v[0], g00 * m.u[1] + g10 * m.v[1]];
-            const q: Vec2 = [g01 * m.u[0] + g11 * m.v[0], g01 * m.u[1] + g11 * m.v[1]];
-            const f00 = p[0] * i00 + q[0] * i10, f01 = p[0] * i01 + q[0] * i11;
-            const f10 = p[1] * i00 + q[1] * i10, f11 = p[1] * i01 + q[1] * i11;
-            const stretch = principalStretch(f00, f01, f10, f11);
+      if (!sheetSupercells) sheetCells.set(cells, (sheetSupercells = sortedByShortest(reducedSupercells(cells, sheet.cell))));
+      for (const m of substrate) {
+        // A map with stretches in [1 − s, 1 + s] scales both successive minima (the lengths of a reduced basis) by
+        // a factor in that range (their minimax characterisation), so only sheet cells in this window can fit.
+        const first = lowerBound(sheetSupercells, (m.shortest / (1 + maxStrain)) * (1 - 1e-9));
+        for (let k = first; k < sheetSupercells.length; k++) {
+          const s = sheetSupercells[k];
+          if (s.shortest > (m.shortest / (1 - maxStrain)) * (1 + 1e-9)) break;
+          const ratio = m.second / s.second;
+          if (!(ratio >= (1 - maxStrain) * (1 - 1e-9) && ratio <= (1 + maxStrain) * (1 + 1e-9))) continue;
+          // U⁻¹ for columns u, v.
+          const det = s.u[0] * s.v[1] - s.u[1] * s.v[0];
+          const i00 = s.v[1] / det, i01 = -s.v[0] / det, i10 = -s.u[1] / det, i11 = s.u[0] / det;
+          for (const g of UNIMODULAR) {
+            const [g00, g01, g10, g11] = g;
+            // Columns of V·G: the substrate vectors that the sheet's u and v map onto; F = V·G·U⁻¹.
+            const px = g00 * m.u[0] + g10 * m.v[0], py = g00 * m.u[1] + g10 * m.v[1];
+            const qx = g01 * m.u[0] + g11 * m.v[0], qy = g01 * m.u[1] + g11 * m.v[1];
+            const map = [px * i00 + qx * i10, px * i01 + qx * i11, py * i00 + qy * i10, py * i01 + qy * i11];
+            const stretch = principalStretch(map[0], map[1], map[2], map[3]);
             if (!(stretch.strain <= maxStrain + 1e-12)) continue;
-            const rows: IntRows = [
-              [g00 * m.rows[0][0] + g10 * m.rows[1][0] + 0, g00 * m.rows[0][1] + g10 * m.rows[1][1] + 0],
-              [g01 * m.rows[0][0] + g11 * m.rows[1][0] + 0, g01 * m.rows[0][1] + g11 * m.rows[1][1] + 0],
-            ];
             let angleDeg = mod((stretch.rotation * 180) / Math.PI, 360);
             if (angleDeg > 360 - 1e-9 || angleDeg < 1e-9) angleDeg = 0;
-            candidates.push({
-              angleDeg,
-              strain: stretch.strain,
-              stretches: [stretch.major, stretch.minor],
-              sheetSupercell: [[...s.rows[0]], [...s.rows[1]]],
-              substrateSupercell: rows,
-              sites,
-              sheetCells: cells,
-              area,
-              moire: moireCell(p, q),
-            });
-            (candidates[candidates.length - 1] as CoincidenceFit & { map?: number[] }).map = [f00, f01, f10, f11];
+            const key = `${cells}|${Math.round(stretch.strain * 1e8)}|${Math.round(canonicalAngle(angleDeg, rotations, mirrors) * 1e6)}`;
+            const kept = orbits.get(key);
+            const found: Found = { angleDeg, strain: stretch.strain, major: stretch.major, minor: stretch.minor, sheet: s, substrate: m, g, cells };
+            if (kept === undefined) orbits.set(key, primitive(found, map, sheet.cell, substrateSpacing) ? found : null);
+            else if (kept !== null && angleDeg < kept.angleDeg - 1e-9) orbits.set(key, found);
           }
         }
       }
     }
+    // Strains equal to rounding (1e-10) rank by angle, so the order does not hang on the last bits.
+    const rank = (x: Found) => Math.round(x.strain * 1e10);
+    const level = [...orbits.values()].filter((f): f is Found => f !== null);
+    level.sort((x, y) => rank(x) - rank(y) || x.cells - y.cells || x.angleDeg - y.angleDeg);
+    for (const found of level) out.push(written(found, sites, area));
   }
-  return distinct(candidates, sheet);
-}
-
-/** Drops supercells of smaller fits and symmetry-equivalent fits (module comment). */
-function distinct(candidates: CoincidenceFit[], sheet: Sheet): CoincidenceFit[] {
-  const { rotations, mirrors } = sheetSymmetry(sheet);
-  candidates.sort((x, y) => x.sites - y.sites || x.strain - y.strain || x.angleDeg - y.angleDeg);
-  const maps = new Set<string>();
-  const orbits = new Map<string, CoincidenceFit>();
-  const order: string[] = [];
-  for (const fit of candidates) {
-    const map = (fit as CoincidenceFit & { map: number[] }).map;
-    delete (fit as CoincidenceFit & { map?: number[] }).map;
-    const mapKey = map.map((x) => Math.round(x * 1e7)).join(',');
-    const smaller = maps.has(mapKey);
-    maps.add(mapKey);
-    if (smaller) continue;
-    const key = `${fit.sites}|${fit.sheetCells}|${Math.round(fit.strain * 1e8)}|${Math.round(canonicalAngle(fit.angleDeg, rotations, mirrors) * 1e6)}`;
-    const kept = orbits.get(key);
-    if (!kept) {
-      orbits.set(key, fit);
-      order.push(key);
-    } else if (fit.angleDeg < kept.angleDeg - 1e-9) {
-      orbits.set(key, fit);
-    }
-  }
-  // Strains equal to rounding (1e-10) rank by angle, so the order does not hang on the last bits.
-  const rank = (x: CoincidenceFit) => Math.round(x.strain * 1e10);
-  return order
-    .map((key) => {
-      const fit = orbits.get(key)!;
-      const w = wood(fit.sites, fit.moire);
-      return w ? { ...fit, wood: w } : fit;
-    })
-    .sort((x, y) => x.sites - y.sites || rank(x) - rank(y) || x.angleDeg - y.angleDeg);
+  return out.slice(0, maxFits);
 }

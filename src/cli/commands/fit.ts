@@ -29,7 +29,9 @@ function run(argv: readonly string[], io: CliIo): number {
   const sheet = resolveSheet(positionals.SHEET, io);
   const maxStrain = (flags['max-strain'] as number | undefined) ?? FIT_DEFAULTS.maxStrain;
   const maxSites = (flags['max-sites'] as number | undefined) ?? FIT_DEFAULTS.maxSites;
-  const fits = coincidenceFits(sheet.sheet, substrate.nnDistance, { maxStrain, maxSites });
+  const found = coincidenceFits(sheet.sheet, substrate.nnDistance, { maxStrain, maxSites, maxFits: FIT_DEFAULTS.maxFits + 1 });
+  const truncated = found.length > FIT_DEFAULTS.maxFits;
+  const fits = found.slice(0, FIT_DEFAULTS.maxFits);
   if (flags.json) {
     io.out(`${JSON.stringify({
       substrate: { name: substrate.name, nn_distance: substrate.nnDistance, title: substrate.title, lattice_source: substrate.latticeSource },
@@ -49,6 +51,7 @@ function run(argv: readonly string[], io: CliIo): number {
       sheet: sheet.label,
       max_strain: maxStrain,
       max_sites: maxSites,
+      truncated,
       caveat: SUBSTRATE_CAVEAT,
     })}\n`);
     return 0;
@@ -56,6 +59,7 @@ function run(argv: readonly string[], io: CliIo): number {
   const lines = [
     `${sheet.label} on ${substrate.title} (a_s = ${substrate.nnDistance.toFixed(4)} Å): ${fits.length} fit${fits.length === 1 ? '' : 's'} up to ${maxSites} metal atoms and strain ${maxStrain}`,
   ];
+  if (truncated) lines.push(`  only the first ${FIT_DEFAULTS.maxFits} are listed: lower --max-strain or --max-sites to see all`);
   if (fits.length === 0) lines.push('  none: raise --max-strain or --max-sites');
   else lines.push('  metal atoms  sheet cells  angle (°)  strain (%)  moiré cell a × b (Å), γ (°), turned (°)   sheet rows → metal rows');
   for (const fit of fits) {
