@@ -4,12 +4,14 @@
  */
 import { benchEigh } from './eigh.ts';
 import { benchEnumerate } from './enumerate.ts';
+import { benchSubstrate } from './substrate.ts';
 import { benchTightBinding } from './tb.ts';
 
 const suites: [string, () => Promise<void>][] = [
   ['enumeration', benchEnumerate],
   ['Hermitian eigensolver', benchEigh],
   ['tight binding', benchTightBinding],
+  ['substrate', benchSubstrate],
 ];
 
 const only = process.argv[2];
