@@ -5,6 +5,7 @@
 import { benchEigh } from './eigh.ts';
 import { benchEnumerate } from './enumerate.ts';
 import { benchFigures } from './figures.ts';
+import { benchSubstrate } from './substrate.ts';
 import { benchTightBinding } from './tb.ts';
 import { benchMeshDensity } from './meshDensity.ts';
 
@@ -14,6 +15,7 @@ const suites: [string, () => Promise<void>][] = [
   ['tight binding', benchTightBinding],
   ['figures', benchFigures],
   ['mesh density (rank)', () => benchMeshDensity()],
+  ['substrate', benchSubstrate],
 ];
 
 const only = process.argv[2];

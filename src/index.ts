@@ -22,6 +22,8 @@ export * from './enumerate/index.ts';
 export * from './tb/index.ts';
 export { RealSymmetricEigensolver } from './tb/eighReal.ts';
 export { timeEigenvalues } from './tb/eighBench.ts';
+// Metal substrates: coincidence fits and electron transfer.
+export * from './substrate/index.ts';
 // Input and output.
 export { ValidationError, invalid, fieldPath } from './io/invalid.ts';
 export * from './io/sheetFile.ts';

@@ -11,16 +11,19 @@ import { dosCommand } from './commands/dos.ts';
 import { enumerateCommand } from './commands/enumerate.ts';
 import { exportCommand } from './commands/export.ts';
 import { fillCommand } from './commands/fill.ts';
+import { fitCommand } from './commands/fit.ts';
 import { geometryCommand } from './commands/geometry.ts';
+import { metalsCommand } from './commands/metals.ts';
 import { plotCommand } from './commands/plot.ts';
 import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
 import { scanCommand } from './commands/scan.ts';
+import { transferCommand } from './commands/transfer.ts';
 import { PIPE_CLOSED_STATUS, PipeClosed, type CliIo, type Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
-  plotCommand, presetsCommand, benchCommand,
+  plotCommand, transferCommand, fitCommand, metalsCommand, presetsCommand, benchCommand,
 ];
 
 function overview(): string {

@@ -44,5 +44,8 @@ describe('CLI golden files', () => {
   }
   it('bands honeycomb --path auto --points 12 --json', () => matchesGolden('bands-honeycomb', ['bands', 'honeycomb', '--path', 'auto', '--points', '12', '--json']));
   it('enumerate --sites 1-6 --holes 0-6 --json', () => matchesGolden('enumerate-1-6', ['enumerate', '--sites', '1-6', '--holes', '0-6', '--json']));
+  it('transfer beta12 --substrate ag111 --mesh 12 --json', () => matchesGolden('transfer-beta12-ag111', ['transfer', 'beta12', '--substrate', 'ag111', '--mesh', '12', '--json']));
+  it('fit chi3 --substrate ag111 --max-sites 12 --json', () => matchesGolden('fit-chi3-ag111', ['fit', 'chi3', '--substrate', 'ag111', '--max-sites', '12', '--json']));
+  it('metals --mesh 12 --json', () => matchesGolden('metals', ['metals', '--mesh', '12', '--json']));
   it('export beta12 --format json', () => matchesGolden('export-beta12', ['export', 'beta12', '--format', 'json']));
 });

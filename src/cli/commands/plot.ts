@@ -98,7 +98,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   }
   for (const path of [svgPath, pngPath]) if (path !== undefined) io.out(`wrote ${path}\n`);
   if (spectra) {
-    io.out(`${source.label}: ${figure} figure, parameters ${params.name}, δ = ${spectra.doping} e/atom, E_F ${spectra.fermi.toFixed(4)} eV (${spectra.mesh}×${spectra.mesh} mesh, σ = ${spectra.smearing} eV)\n`);
+    io.out(`${source.label}: ${figure} figure, parameters ${params.name}, δ = ${spectra.doping} e/atom, E_F ${spectra.fermi.toFixed(4)} eV (${spectra.mesh}×${spectra.mesh} mesh, Gaussian width ${spectra.smearing} eV)\n`);
     io.out(`${MODEL_CAVEAT}\n`);
   }
   return 0;
