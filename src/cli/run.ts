@@ -15,11 +15,12 @@ import { geometryCommand } from './commands/geometry.ts';
 import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
 import { scanCommand } from './commands/scan.ts';
+import { stmCommand } from './commands/stm.ts';
 import type { CliIo, Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
-  presetsCommand, benchCommand,
+  stmCommand, presetsCommand, benchCommand,
 ];
 
 function overview(): string {
