@@ -16,11 +16,12 @@ import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
 import { scanCommand } from './commands/scan.ts';
 import { stmCommand } from './commands/stm.ts';
+import { matchCommand } from './commands/match.ts';
 import type { CliIo, Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
-  stmCommand, presetsCommand, benchCommand,
+  stmCommand, matchCommand, presetsCommand, benchCommand,
 ];
 
 function overview(): string {

@@ -27,7 +27,7 @@ export interface MatchOptions {
   bond?: number;
   tolerance?: CellTolerance;
   parameters: ParameterSet;
-  /** The simulation of each candidate (default mesh 12). */
+  /** The simulation of each candidate (default mesh 24, as stm). */
   stm?: StmOptions;
   /** Called after each structure examined, with the count so far. */
   onProgress?: (examined: number) => void;
@@ -51,7 +51,7 @@ export interface MatchResult {
   fitting: number;
 }
 
-export const MATCH_DEFAULTS = { sites: [2, 12] as [number, number], top: 5, bond: 1.69, mesh: 12 };
+export const MATCH_DEFAULTS = { sites: [2, 12] as [number, number], top: 5, bond: 1.69, mesh: 24 };
 
 export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options: MatchOptions): MatchResult {
   const sites = options.sites ?? MATCH_DEFAULTS.sites;
