@@ -4,6 +4,7 @@
  * mirror image, the same structure for the enumerator). C' = U·C (rows) matches M when, after one common scale
  * s = √(area_M / area_C), the lengths agree within `shape` (relative) and the angles within `angleDeg`.
  */
+import { gaussReduce } from '../lattice/reduce.ts';
 import type { Vec2 } from '../lattice/sheet.ts';
 
 export interface CellTolerance {
@@ -42,6 +43,37 @@ export function correspondences(candidate: [Vec2, Vec2], measured: [Vec2, Vec2],
     if (Math.abs((len(v) * scale) / len(m2) - 1) > tolerance.shape) continue;
     if (Math.abs(angle(u, v) - angle(m1, m2)) > tolerance.angleDeg) continue;
     out.push({ vectors: [u, v], scale });
+  }
+  return out;
+}
+
+/** A cell of the measured lattice's sublattice: its reduced, right-handed vectors (Å) and index (area ratio). */
+export interface Sublattice {
+  vectors: [Vec2, Vec2];
+  index: number;
+}
+
+/**
+ * The sublattices of index 1…maxIndex of a lattice (Hermite normal forms [[a, 0], [b, c]], a·c = index, 0 ≤ b < a, rows
+ * in the lattice's basis), each Gauss-reduced and right-handed. A weak fundamental Fourier peak lost in the noise
+ * makes the measured lattice finer than the true one; the true cell is then one of these.
+ */
+export function sublattices(cell: [Vec2, Vec2], maxIndex: number): Sublattice[] {
+  const out: Sublattice[] = [];
+  const [m1, m2] = cell;
+  for (let index = 1; index <= maxIndex; index++) {
+    for (let a = 1; a <= index; a++) {
+      if (index % a !== 0) continue;
+      const c = index / a;
+      for (let b = 0; b < a; b++) {
+        const u: Vec2 = [a * m1[0], a * m1[1]];
+        const v: Vec2 = [b * m1[0] + c * m2[0], b * m1[1] + c * m2[1]];
+        const r = gaussReduce(u, v);
+        let [p, q] = [r.u, r.v];
+        if (p[0] * q[1] - p[1] * q[0] < 0) [p, q] = [q, p];
+        out.push({ vectors: [p, q], index });
+      }
+    }
   }
   return out;
 }

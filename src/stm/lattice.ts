@@ -1,8 +1,9 @@
 /**
  * The lattice of a periodic picture from its spectrum peaks (src/stm/peaks.ts).
- * 1. Reciprocal basis: the shortest peak g1 and the shortest one at least 15° from its line, g2; while a strong peak
- *    (≥ 1 % of the strongest) is not an integer combination of them, its remainder p − round(c)·(g1, g2) is a shorter
- *    lattice vector and the basis is rebuilt from the three (Gauss-reduced).
+ * 1. Reciprocal basis: among the peaks with ≥ 1 % of the strongest power, the shortest g1 and the shortest one at
+ *    least 15° from its line, g2 (taken from the peaks with ≥ 0.2 % when the strong ones all lie on one line: stripes); while a peak with ≥ 0.2 % of the strongest power is not an integer combination of them, its remainder p − round(c)·(g1, g2) is a shorter
+ *    lattice vector and the basis is rebuilt from the three (Gauss-reduced) — unless the remainder is shorter than the
+ *    longest period allowed (minRadians), when the peak is left out.
  * 2. Least squares: every peak indexed within 0.2 of integers (n1, n2) gives p ≈ n1·g1 + n2·g2; x and y components
  *    are fitted separately, with covariance σ²·(NᵀN)⁻¹ (σ the residual rms, at least 0.05 bin, the interpolation
  *    accuracy: common practice estimate).
@@ -32,6 +33,9 @@ export interface MeasuredLattice {
 const cross = (p: Vec2, q: Vec2) => p[0] * q[1] - p[1] * q[0];
 const length = (p: Vec2) => Math.hypot(p[0], p[1]);
 const SIN_15 = Math.sin(Math.PI / 12);
+/** Peaks that may start the basis, and peaks that may refine it, as shares of the strongest peak's power. */
+const BASIS_SHARE = 0.01;
+const STRAY_SHARE = 0.002;
 
 function independentPair(vectors: Vec2[]): [Vec2, Vec2] | undefined {
   const sorted = [...vectors].filter((v) => length(v) > 1e-9).sort((p, q) => length(p) - length(q));
@@ -46,8 +50,8 @@ function coordinates(g1: Vec2, g2: Vec2, p: Vec2): Vec2 {
   return [cross(p, g2) / det, cross(g1, p) / det];
 }
 
-/** Real cell of a reciprocal basis: A_i·g_j = 2π·δ_ij. */
-function realCell(g1: Vec2, g2: Vec2): [Vec2, Vec2] {
+/** Real cell of a reciprocal basis: A_i·g_j = 2π·δ_ij (the same relation gives the reciprocal of a real cell). */
+export function realCell(g1: Vec2, g2: Vec2): [Vec2, Vec2] {
   const s = (2 * Math.PI) / cross(g1, g2);
   return [[s * g2[1], -s * g2[0]], [-s * g1[1], s * g1[0]]];
 }
@@ -63,22 +67,28 @@ function fitComponent(n: Vec2[], values: number[]): { x: Vec2; inverse: [number,
 }
 
 /** The lattice of the peaks (k in rad/pixel), or undefined when the peaks do not make two independent directions. */
-export function fitLattice(peaks: readonly SpectrumPeak[], pixelSize: number, binRadians: number): MeasuredLattice | undefined {
+export function fitLattice(peaks: readonly SpectrumPeak[], pixelSize: number, binRadians: number, minRadians = 0): MeasuredLattice | undefined {
   if (peaks.length < 2) return undefined;
   const strongest = Math.max(...peaks.map((p) => p.power));
-  const vectors: Vec2[] = peaks.map((p) => [p.kx, p.ky]);
-  let basis = independentPair(vectors);
+  const strong: Vec2[] = peaks.filter((p) => p.power >= BASIS_SHARE * strongest).map((p) => [p.kx, p.ky]);
+  const weaker: Vec2[] = peaks.filter((p) => p.power >= STRAY_SHARE * strongest).map((p) => [p.kx, p.ky]);
+  let basis = independentPair(strong) ?? independentPair([independentPair(strong.concat(weaker))?.[0] ?? [0, 0], ...weaker]);
   if (!basis) return undefined;
   for (let round = 0; round < 6; round++) {
     const [g1, g2] = basis;
-    const stray = peaks.find((p) => {
-      if (p.power < 0.01 * strongest) return false;
+    let rest: Vec2 | undefined;
+    for (const p of peaks) {
+      if (p.power < STRAY_SHARE * strongest) continue;
       const c = coordinates(g1, g2, [p.kx, p.ky]);
-      return Math.max(Math.abs(c[0] - Math.round(c[0])), Math.abs(c[1] - Math.round(c[1]))) > 0.25;
-    });
-    if (!stray) break;
-    const c = coordinates(g1, g2, [stray.kx, stray.ky]);
-    const rest: Vec2 = [stray.kx - Math.round(c[0]) * g1[0] - Math.round(c[1]) * g2[0], stray.ky - Math.round(c[0]) * g1[1] - Math.round(c[1]) * g2[1]];
+      if (Math.max(Math.abs(c[0] - Math.round(c[0])), Math.abs(c[1] - Math.round(c[1]))) <= 0.25) continue;
+      const r: Vec2 = [p.kx - Math.round(c[0]) * g1[0] - Math.round(c[1]) * g2[0], p.ky - Math.round(c[0]) * g1[1] - Math.round(c[1]) * g2[1]];
+      // A remainder shorter than the longest period allowed is not a lattice vector: the peak is left unindexed.
+      if (length(r) >= minRadians) {
+        rest = r;
+        break;
+      }
+    }
+    if (!rest) break;
     const pair = independentPair([g1, g2, rest]);
     if (!pair) return undefined;
     const reduced = gaussReduce(pair[0], pair[1]);

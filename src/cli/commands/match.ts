@@ -26,7 +26,7 @@ const spec: CommandSpec = {
     'pixel-size': { kind: 'number', min: 0, max: 100, exclusiveMin: true, placeholder: 'Å', help: 'Å per pixel; required' },
     sites: { kind: 'integerRange', min: 2, max: 16, placeholder: 'N1-N2', help: 'lattice sites per cell of the candidates (default 2-12)' },
     top: { kind: 'integer', min: 1, max: 1000, placeholder: 'K', help: 'candidates listed (default 5)' },
-    background: { kind: 'choice', values: ['lines', 'plane', 'none'], placeholder: 'lines|plane|none', help: 'background removed: a line fitted to each row (default), one plane, or none' },
+    background: { kind: 'choice', values: ['plane', 'lines', 'none'], placeholder: 'plane|lines|none', help: 'background removed: one plane (default), a line fitted to each scan row (also removes row offsets; Fourier peaks on the kx = 0 axis are then ignored), or none' },
     bond: { kind: 'number', min: 1, max: 3, placeholder: 'd', help: 'B–B distance of the candidates in Å (default 1.69)' },
     bias: BIAS_FLAG,
     height: HEIGHT_FLAG,
@@ -85,7 +85,7 @@ function run(argv: readonly string[], io: CliIo): number {
       candidates: result.candidates.map((c) => {
         const out: Record<string, unknown> = {
           sites: c.structure.sites, holes: c.structure.holes, supercell: hnfRows(c.structure.pattern.supercell),
-          vacancies: c.structure.pattern.vacancies, score: c.score, eta: c.structure.eta, scale: c.scale, shift: c.shift,
+          vacancies: c.structure.pattern.vacancies, score: c.score, eta: c.structure.eta, scale: c.scale, index: c.index, shift: c.shift,
         };
         if (c.structure.phase) out.phase = c.structure.phase;
         return out;
@@ -105,7 +105,7 @@ function run(argv: readonly string[], io: CliIo): number {
   if (result.candidates.length === 0) lines.push('no candidate: widen --sites, or check --pixel-size and --bond');
   for (const c of result.candidates) {
     const holes = c.structure.pattern.vacancies.map(([i, j]) => `(${i},${j})`).join(' ');
-    lines.push(`  score ${c.score.toFixed(3)}  N=${c.structure.sites} k=${c.structure.holes} η=${c.structure.eta.toFixed(4)}  supercell ${JSON.stringify(hnfRows(c.structure.pattern.supercell))} holes ${holes}${c.structure.phase ? `  (${c.structure.phase})` : ''}`);
+    lines.push(`  score ${c.score.toFixed(3)}${c.index > 1 ? ` (cell ${c.index}× the fitted one)` : ''}  N=${c.structure.sites} k=${c.structure.holes} η=${c.structure.eta.toFixed(4)}  supercell ${JSON.stringify(hnfRows(c.structure.pattern.supercell))} holes ${holes}${c.structure.phase ? `  (${c.structure.phase})` : ''}`);
   }
   lines.push(`score: ${SIMILARITY}.`, STM_CAVEAT);
   io.out(`${lines.join('\n')}\n`);
