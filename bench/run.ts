@@ -5,11 +5,13 @@
 import { benchEigh } from './eigh.ts';
 import { benchEnumerate } from './enumerate.ts';
 import { benchTightBinding } from './tb.ts';
+import { benchStm } from './stm.ts';
 
 const suites: [string, () => Promise<void>][] = [
   ['enumeration', benchEnumerate],
   ['Hermitian eigensolver', benchEigh],
   ['tight binding', benchTightBinding],
+  ['STM pictures', benchStm],
 ];
 
 const only = process.argv[2];
