@@ -16,7 +16,7 @@ import { ProgressLine } from '../progress.ts';
 import { BIAS_FLAG, HEIGHT_FLAG, MODE_FLAG, STM_CAVEAT, STM_MESH_FLAG, WORK_FUNCTION_FLAG } from '../stmFlags.ts';
 import { checkBias } from './stm.ts';
 
-const SIMILARITY = 'Pearson correlation of the picture folded onto its fitted cell with the model picture on the same cell, best over the fitting choices of cell vectors (mirror images included) and all translations';
+const SIMILARITY = 'Pearson correlation of the picture averaged onto the candidate\'s cell (fitted from the picture) with the candidate\'s model picture on that cell, best over the fitting choices of cell vectors (mirror images included) and all translations';
 
 const spec: CommandSpec = {
   name: 'match',
