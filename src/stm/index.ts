@@ -18,3 +18,4 @@ export * from './similarity.ts';
 export * from './analyse.ts';
 export * from './correspondence.ts';
 export * from './match.ts';
+export * from './overlay.ts';

@@ -67,6 +67,11 @@ describe('lacuna match', () => {
     expect(best).toMatchObject({ sites: 5, holes: 1, phase: 'chi3' });
     const scores = document.candidates.map((c: { score: number }) => c.score);
     expect(scores).toEqual([...scores].sort((a, b) => b - a));
+    const drawn = await cli(['match', 'chi3.png', '--pixel-size', String(pixelSize), '--sites', '5-5', '--overlay', 'lattice.png'], files);
+    expect(drawn.code).toBe(0);
+    const overlay = decode(drawn.files.get('lattice.png') as Uint8Array);
+    expect([overlay.width, overlay.height, overlay.channels]).toEqual([256, 256, 1]);
+    await refused(['match', 'chi3.png', '--pixel-size', '0.33', '--overlay', 'chi3.png'], /^invalid --overlay: "chi3\.png" \(the file exists/, files);
   });
 
   it('bad input names the file and what is wrong: not an image, empty, flat, no periodicity, missing file, no --pixel-size', async () => {

@@ -5,12 +5,14 @@
 import { readPicture } from '../../io/imageFile.ts';
 import { invalid } from '../../io/invalid.ts';
 import { hnfRows } from '../../lattice/pattern.ts';
+import { encodeGreyPng } from '../../io/png.ts';
 import { analysePicture } from '../../stm/analyse.ts';
+import { latticeOverlay } from '../../stm/overlay.ts';
 import type { Background } from '../../stm/background.ts';
 import { MATCH_DEFAULTS, matchPatterns } from '../../stm/match.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
-import { DOPING_FLAG, JSON_FLAG, PARAMS_FLAG, SMEARING_FLAG } from '../commonFlags.ts';
-import type { Command, CliIo } from '../io.ts';
+import { DOPING_FLAG, JSON_FLAG, OVERWRITE_FLAG, PARAMS_FLAG, SMEARING_FLAG } from '../commonFlags.ts';
+import { checkOutputPath, writeNamedFile, type Command, type CliIo } from '../io.ts';
 import { resolveParameters } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
 import { BIAS_FLAG, HEIGHT_FLAG, MODE_FLAG, STM_CAVEAT, STM_MESH_FLAG, WORK_FUNCTION_FLAG } from '../stmFlags.ts';
@@ -36,6 +38,8 @@ const spec: CommandSpec = {
     mesh: { ...STM_MESH_FLAG, help: 'Γ-centred M×M k-mesh of E_F and the LDOS of each candidate (default 24)' },
     smearing: SMEARING_FLAG,
     doping: DOPING_FLAG,
+    overlay: { kind: 'text', placeholder: 'FILE', help: 'also write the picture (background removed) with the fitted lattice points marked, as a PNG' },
+    overwrite: OVERWRITE_FLAG,
     json: JSON_FLAG,
   },
 };
@@ -45,6 +49,8 @@ function run(argv: readonly string[], io: CliIo): number {
   const file = positionals.IMAGE;
   const pixelSize = flags['pixel-size'] as number | undefined;
   if (pixelSize === undefined) invalid('--pixel-size', undefined, 'required: Å per pixel of the picture');
+  const overlay = flags.overlay as string | undefined;
+  checkOutputPath(io, '--overlay', overlay, flags.overwrite === true);
   const bias = checkBias((flags.bias as number | undefined) ?? 1);
   const parameters = resolveParameters(flags.params as string | undefined, io);
   let bytes: Uint8Array;
@@ -56,6 +62,7 @@ function run(argv: readonly string[], io: CliIo): number {
   const decoded = readPicture(file, bytes);
   const analysis = analysePicture({ ...decoded, pixelSize }, { background: flags.background as Background | undefined });
   if (!analysis.ok) invalid(file, `${decoded.width}×${decoded.height} pixels`, analysis.why);
+  if (overlay !== undefined) writeNamedFile(io, '--overlay', overlay, encodeGreyPng(analysis.width, analysis.height, latticeOverlay(analysis)));
   const progress = new ProgressLine(io.err, 'patterns');
   const result = matchPatterns(analysis, {
     parameters,
