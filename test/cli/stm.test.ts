@@ -1,7 +1,11 @@
 import { decode } from 'fast-png';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../src/cli/run.ts';
-import { mulberry32 } from '../stm/helpers.ts';
+import { encode as encodeJpeg } from 'jpeg-js';
+import { encode as encodePng } from 'fast-png';
+import { patternToSheet } from '../../src/lattice/pattern.ts';
+import { findSheetPreset } from '../../src/lattice/presets.ts';
+import { mulberry32, syntheticPicture } from '../stm/helpers.ts';
 import { fakeIo } from './fakeIo.ts';
 
 async function cli(argv: string[], files: Record<string, string | Uint8Array> = {}) {
@@ -72,6 +76,28 @@ describe('lacuna match', () => {
     const overlay = decode(drawn.files.get('lattice.png') as Uint8Array);
     expect([overlay.width, overlay.height, overlay.channels]).toEqual([256, 256, 1]);
     await refused(['match', 'chi3.png', '--pixel-size', '0.33', '--overlay', 'chi3.png'], /^invalid --overlay: "chi3\.png" \(the file exists/, files);
+  });
+
+  it('reads the same synthetic β12 picture (rotated 37°, tilted, noisy) as a height matrix in text, a colour JPEG and a 16-bit PNG, and names β12 each time', async () => {
+    const picture = syntheticPicture(patternToSheet(findSheetPreset('beta12')!.pattern), { pixels: 192, pixelSize: 0.2, angleDeg: 37, tilt: 2, noise: 0.2, seed: 9 });
+    let lo = Infinity, hi = -Infinity;
+    for (const v of picture.values) { lo = Math.min(lo, v); hi = Math.max(hi, v); }
+    const level = (v: number) => (v - lo) / (hi - lo);
+    const rows: string[] = [];
+    for (let r = 0; r < 192; r++) rows.push(Array.from(picture.values.subarray(r * 192, (r + 1) * 192), (v) => v.toFixed(5)).join(' '));
+    const rgba = new Uint8Array(192 * 192 * 4);
+    picture.values.forEach((v, i) => rgba.set([255 * level(v), 200 * level(v), 40, 255], 4 * i));
+    const deep = Uint16Array.from(picture.values, (v) => Math.round(65535 * level(v)));
+    const files = {
+      'b.txt': `# demo heights (Å), synthetic\n${rows.join('\n')}\n`,
+      'b.jpg': encodeJpeg({ width: 192, height: 192, data: rgba }, 90).data,
+      'b16.png': encodePng({ width: 192, height: 192, data: deep, depth: 16, channels: 1 }),
+    };
+    for (const file of Object.keys(files)) {
+      const { code, stdout } = await cli(['match', file, '--pixel-size', '0.2', '--sites', '5-7', '--top', '2', '--json'], files);
+      expect(code).toBe(0);
+      expect(JSON.parse(stdout).candidates[0]).toMatchObject({ sites: 6, holes: 1, phase: 'beta12' });
+    }
   });
 
   it('bad input names the file and what is wrong: not an image, empty, flat, no periodicity, missing file, no --pixel-size', async () => {
