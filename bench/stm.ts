@@ -33,7 +33,7 @@ export async function benchStm(): Promise<void> {
   }
   const [fermi, fillMs] = time(() => fill(model, { mesh: 24 }).fermi);
   const [stm, ldosMs] = time(() => stmModel(model, { fermi }));
-  const [, renderMs] = time(() => renderStm(stm, sheet.cell, 256, 4));
+  const [, renderMs] = time(() => renderStm(stm, sheet.cell, { pixels: 256, cells: 4 }));
   console.log(`stm   of which Fermi level ${fillMs.toFixed(0)} ms, LDOS series ${ldosMs.toFixed(0)} ms (${stm.fields[1].count} terms), 65,536 pixels × 3 heights ${renderMs.toFixed(0)} ms`);
 
   const picture = syntheticPicture(patternToSheet(findSheetPreset('alpha')!.pattern), { pixels: 512, pixelSize: 0.2, angleDeg: 17, tilt: 3, noise: 0.3, seed: 5 });

@@ -15,7 +15,10 @@ export interface Picture {
   values: Float64Array;
 }
 
-export interface StmPictureOptions extends StmOptions {
+export interface StmPictureOptions extends StmOptions, PictureFrame {}
+
+/** The picture's size: pixels per side and cells per side. */
+export interface PictureFrame {
   /** Pixels per side (default 256). */
   pixels?: number;
   /** Cells per side (default 4). */
@@ -23,7 +26,8 @@ export interface StmPictureOptions extends StmOptions {
 }
 
 /** Evaluates an STM model on the picture's pixels (see the module comment for the frame). */
-export function renderStm(stm: StmModel, cell: TightBindingModel['sheet']['cell'], pixels: number, cells: number): Picture {
+export function renderStm(stm: StmModel, cell: TightBindingModel['sheet']['cell'], frame: PictureFrame = {}): Picture {
+  const pixels = frame.pixels ?? 256, cells = frame.cells ?? 4;
   const [[ax, ay], [bx, by]] = cell;
   const side = cells * Math.max(Math.hypot(ax, ay), Math.hypot(bx, by));
   const s = side / pixels;
@@ -43,5 +47,5 @@ export function renderStm(stm: StmModel, cell: TightBindingModel['sheet']['cell'
 /** Simulates and renders in one call; returns the model too (its Fermi level, κ, states in the window). */
 export function stmPicture(model: TightBindingModel, options: StmPictureOptions = {}): { stm: StmModel; picture: Picture } {
   const stm = stmModel(model, options);
-  return { stm, picture: renderStm(stm, model.sheet.cell, options.pixels ?? 256, options.cells ?? 4) };
+  return { stm, picture: renderStm(stm, model.sheet.cell, options) };
 }

@@ -26,7 +26,7 @@ const spec: CommandSpec = {
   positionals: [{ name: 'IMAGE', help: 'a PNG (8 or 16 bit), a JPEG, or a text matrix of heights or currents' }],
   flags: {
     'pixel-size': { kind: 'number', min: 0, max: 100, exclusiveMin: true, placeholder: 'Å', help: 'Å per pixel; required' },
-    sites: { kind: 'integerRange', min: 2, max: 16, placeholder: 'N1-N2', help: 'lattice sites per cell of the candidates (default 2-12)' },
+    sites: { kind: 'integerRange', min: 1, max: 16, placeholder: 'N1-N2', help: 'lattice sites per cell of the candidates (default 2-12)' },
     top: { kind: 'integer', min: 1, max: 1000, placeholder: 'K', help: 'candidates listed (default 5)' },
     background: { kind: 'choice', values: ['plane', 'lines', 'none'], placeholder: 'plane|lines|none', help: 'background removed: one plane (default), a line fitted to each scan row (also removes row offsets; Fourier peaks on the kx = 0 axis are then ignored), or none' },
     bond: { kind: 'number', min: 1, max: 3, placeholder: 'd', help: 'B–B distance of the candidates in Å (default 1.69)' },

@@ -55,7 +55,7 @@ function run(argv: readonly string[], io: CliIo): number {
     doping: flags.doping as number | undefined,
   });
   if (!(stm.states > 1e-6)) invalid('--bias', bias, `no states of ${sheet.label} lie in the window E_F … E_F + eV on this mesh (a gap): widen --bias or --smearing`);
-  const picture = renderStm(stm, model.sheet.cell, (flags.pixels as number | undefined) ?? 256, (flags.cells as number | undefined) ?? 4);
+  const picture = renderStm(stm, model.sheet.cell, { pixels: flags.pixels as number | undefined, cells: flags.cells as number | undefined });
   let lo = Infinity, hi = -Infinity;
   for (const v of picture.values) {
     lo = Math.min(lo, v);
