@@ -56,6 +56,8 @@ export interface StmModel {
   fields: SeriesField[];
   /** Set-point current (the mean at h) in the model's units. */
   setPoint: number;
+  /** When E_F was found in a gap of the mesh spectrum: its edges (eV). */
+  gap?: { lower: number; upper: number };
 }
 
 export function stmModel(model: TightBindingModel, options: StmOptions = {}): StmModel {
@@ -65,7 +67,8 @@ export function stmModel(model: TightBindingModel, options: StmOptions = {}): St
   const mesh = options.mesh ?? STM_DEFAULTS.mesh;
   const smearing = options.smearing ?? STM_DEFAULTS.smearing;
   const kappa = decayConstant(options.workFunction ?? DEFAULT_WORK_FUNCTION);
-  const fermi = options.fermi ?? fill(model, { mesh, smearing, doping: options.doping ?? STM_DEFAULTS.doping }).fermi;
+  const filled = options.fermi === undefined ? fill(model, { mesh, smearing, doping: options.doping ?? STM_DEFAULTS.doping }) : undefined;
+  const fermi = options.fermi ?? (filled as NonNullable<typeof filled>).fermi;
   const heights = mode === 'constant-height' ? [height] : [height - CURRENT_STEP, height, height + CURRENT_STEP];
   const series = ldosSeries(model, {
     kappa, heights, kpoints: halfMesh(model.sheet.cell, mesh),
@@ -73,7 +76,9 @@ export function stmModel(model: TightBindingModel, options: StmOptions = {}): St
   });
   const fields = heights.map((_, j) => seriesField(series, j));
   const setPoint = fields[mode === 'constant-height' ? 0 : 1].mean;
-  return { mode, bias, height, fermi, kappa, states: series.states, fields, setPoint };
+  const out: StmModel = { mode, bias, height, fermi, kappa, states: series.states, fields, setPoint };
+  if (filled?.inGap) out.gap = filled.inGap;
+  return out;
 }
 
 /**

@@ -50,6 +50,8 @@ describe('lacuna stm', () => {
     await refused(['stm', 'alpha', '--png', 'a.png', '--height', '0.5'], /^invalid --height: "0.5"/);
     await refused(['stm', 'alpha', '--png', 'a.png', '--pixels', '5000'], /^invalid --pixels: "5000"/);
     await refused(['stm', 'alpha'], /^invalid --png: missing/);
+    // The honeycomb's E_F is mid-gap in this model (fill reports the gap): ±1 V reaches no state.
+    await refused(['stm', 'honeycomb', '--png', 'h.png', '--mesh', '8'], /^invalid --bias: 1 \(no states of honeycomb .* lies in a gap from/);
     await refused(['stm', 'alpha', '--png', 'a.png'], /^invalid --png: "a.png" \(the file exists/, { 'a.png': 'mine' });
   });
 });

@@ -54,7 +54,10 @@ function run(argv: readonly string[], io: CliIo): number {
     smearing: flags.smearing as number | undefined,
     doping: flags.doping as number | undefined,
   });
-  if (!(stm.states > 1e-6)) invalid('--bias', bias, `no states of ${sheet.label} lie in the window E_F … E_F + eV on this mesh (a gap): widen --bias or --smearing`);
+  if (!(stm.states > 1e-6)) {
+    const gap = stm.gap ? `: E_F = ${stm.fermi.toFixed(3)} eV lies in a gap from ${stm.gap.lower.toFixed(3)} to ${stm.gap.upper.toFixed(3)} eV, so |V| must exceed ${Math.min(stm.fermi - stm.gap.lower, stm.gap.upper - stm.fermi).toFixed(2)} V` : '';
+    invalid('--bias', bias, `no states of ${sheet.label} lie in the window E_F … E_F + eV on this mesh${gap}; or widen --smearing`);
+  }
   const picture = renderStm(stm, model.sheet.cell, { pixels: flags.pixels as number | undefined, cells: flags.cells as number | undefined });
   let lo = Infinity, hi = -Infinity;
   for (const v of picture.values) {
