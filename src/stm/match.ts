@@ -56,6 +56,8 @@ export interface MatchResult {
   examined: number;
   /** Structures whose cell fits (each simulated once). */
   fitting: number;
+  /** Fitting structures not scored: no state in the bias window (E_F in a gap of the model wider than the bias). */
+  emptyWindow: Structure[];
 }
 
 export const MATCH_DEFAULTS = { sites: [2, 12] as [number, number], top: 5, bond: 1.69, mesh: 24, maxIndex: 4 };
@@ -79,6 +81,7 @@ export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options
   const found: MatchCandidate[] = [];
   let examined = 0;
   let fitting = 0;
+  const emptyWindow: Structure[] = [];
   const points = bins * bins;
   for (const structure of enumerateStructures({ sites, holes: [1, sites[1]], isolated: true, bond: options.bond ?? MATCH_DEFAULTS.bond })) {
     examined++;
@@ -93,7 +96,10 @@ export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options
     if (fits.length === 0) continue;
     fitting++;
     const stm = stmModel(new TightBindingModel(sheet, options.parameters), { mesh: MATCH_DEFAULTS.mesh, ...options.stm });
-    if (!(stm.states > 1e-6)) continue;
+    if (!(stm.states > 1e-6)) {
+      emptyWindow.push(structure);
+      continue;
+    }
     const x = new Float64Array(points * fits.length), y = new Float64Array(points * fits.length);
     fits.forEach(({ fit: { vectors: [u, v] } }, f) => {
       for (let i = 0; i < bins; i++) {
@@ -115,5 +121,5 @@ export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options
     if (best) found.push(best);
   }
   found.sort((p, q) => q.score - p.score);
-  return { candidates: found.slice(0, options.top ?? MATCH_DEFAULTS.top), examined, fitting };
+  return { candidates: found.slice(0, options.top ?? MATCH_DEFAULTS.top), examined, fitting, emptyWindow };
 }

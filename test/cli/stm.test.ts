@@ -102,6 +102,17 @@ describe('lacuna match', () => {
     }
   });
 
+  it('lists fitting patterns whose bias window is empty as unscored (the honeycomb: E_F mid-gap in this model), and scores them at a larger bias', async () => {
+    const made = await cli(['stm', 'honeycomb', '--bias', '2', '--pixels', '128', '--cells', '8', '--mesh', '12', '--png', 'h.png', '--json']);
+    const files = { 'h.png': made.files.get('h.png') as Uint8Array };
+    const pixelSize = String(JSON.parse(made.stdout).pixel_size);
+    const low = JSON.parse((await cli(['match', 'h.png', '--pixel-size', pixelSize, '--sites', '2-4', '--mesh', '12', '--json'], files)).stdout);
+    expect(low.unscored).toContainEqual(expect.objectContaining({ sites: 3, holes: 1 }));
+    expect(low.candidates.some((c: { phase?: string }) => c.phase === 'honeycomb')).toBe(false);
+    const high = JSON.parse((await cli(['match', 'h.png', '--pixel-size', pixelSize, '--sites', '2-4', '--mesh', '12', '--bias', '2', '--json'], files)).stdout);
+    expect(high.candidates[0]).toMatchObject({ sites: 3, holes: 1, phase: 'honeycomb' });
+  });
+
   it('bad input names the file and what is wrong: not an image, empty, flat, no periodicity, missing file, no --pixel-size', async () => {
     const random = mulberry32(3);
     const noise = Array.from({ length: 64 }, () => Array.from({ length: 64 }, () => random().toFixed(4)).join(' ')).join('\n');

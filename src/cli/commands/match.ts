@@ -99,6 +99,7 @@ function run(argv: readonly string[], io: CliIo): number {
       }),
       image: { file, format: decoded.format, width: decoded.width, height: decoded.height, pixel_size: pixelSize },
       examined: result.examined, fitting: result.fitting, parameters: parameters.name,
+      unscored: result.emptyWindow.map((st) => ({ sites: st.sites, holes: st.holes, supercell: hnfRows(st.pattern.supercell), vacancies: st.pattern.vacancies, why: 'no state in the bias window: E_F lies in a gap of the model wider than the bias' })),
       similarity: SIMILARITY,
       model: 'Tersoff–Hamann on tight binding (model pictures, not predictions)',
     })}\n`);
@@ -109,6 +110,9 @@ function run(argv: readonly string[], io: CliIo): number {
     `lattice  a = ${lattice.a.toFixed(3)} ± ${lattice.aError.toFixed(3)} Å, b = ${lattice.b.toFixed(3)} ± ${lattice.bError.toFixed(3)} Å, γ = ${lattice.gammaDeg.toFixed(2)} ± ${lattice.gammaDegError.toFixed(2)}° (${lattice.peaks} Fourier peaks)`,
     `${result.examined} isolated-hole patterns examined, ${result.fitting} with a fitting cell`,
   ];
+  if (result.emptyWindow.length > 0) {
+    lines.push(`${result.emptyWindow.length} fitting pattern(s) not scored: no state in the bias window (E_F in a gap of the model); a larger |--bias| reaches them: ${result.emptyWindow.map((st) => `N=${st.sites} k=${st.holes}${st.phase ? ` (${st.phase})` : ''}`).join(', ')}`);
+  }
   if (result.candidates.length === 0) lines.push('no candidate: widen --sites, or check --pixel-size and --bond');
   for (const c of result.candidates) {
     const holes = c.structure.pattern.vacancies.map(([i, j]) => `(${i},${j})`).join(' ');
