@@ -8,6 +8,7 @@ import { benchFigures } from './figures.ts';
 import { benchSubstrate } from './substrate.ts';
 import { benchTightBinding } from './tb.ts';
 import { benchMeshDensity } from './meshDensity.ts';
+import { benchStm } from './stm.ts';
 
 const suites: [string, () => Promise<void>][] = [
   ['enumeration', benchEnumerate],
@@ -16,6 +17,7 @@ const suites: [string, () => Promise<void>][] = [
   ['figures', benchFigures],
   ['mesh density (rank)', () => benchMeshDensity()],
   ['substrate', benchSubstrate],
+  ['STM pictures', benchStm],
 ];
 
 const only = process.argv[2];

@@ -32,3 +32,7 @@ export { parseKpointsText, parseKpointsObject } from './io/kpointsFile.ts';
 export { sheetToCif } from './io/cif.ts';
 export { sheetToXyz } from './io/xyz.ts';
 export * from './io/sheetJson.ts';
+// STM pictures: simulation (Tersoff–Hamann), measured-picture analysis and matching; picture files.
+export * from './stm/index.ts';
+export { encodeGreyPng, toGrey8, crc32, adler32 } from './io/png.ts';
+export { readPicture, MAX_PICTURE_PIXELS, MAX_PICTURE_SIDE, MIN_PICTURE_SIDE, type DecodedPicture } from './io/imageFile.ts';

@@ -12,6 +12,8 @@ export interface CliIo {
   err: ProgressSink;
   /** Reads a text file; throws (any error) when it cannot. */
   readText(path: string): string;
+  /** Reads a file's bytes (pictures); throws (any error) when it cannot. */
+  readBytes(path: string): Uint8Array;
   /** Writes a file, creating or replacing it. */
   writeFile(path: string, data: string | Uint8Array): void;
   /** True when something exists at path. */

@@ -77,6 +77,7 @@ let code = await runCli(
     out,
     err: { isTTY: process.stderr.isTTY === true, write: (text) => process.stderr.write(text) },
     readText: (path) => (path === '-' ? readFileSync(0, 'utf8') : readFileSync(path, 'utf8')),
+    readBytes: (path) => new Uint8Array(path === '-' ? readFileSync(0) : readFileSync(path)),
     writeFile: writeWhole,
     exists: (path) => existsSync(path),
   },

@@ -19,11 +19,13 @@ import { presetsCommand } from './commands/presets.ts';
 import { rankCommand } from './commands/rank.ts';
 import { scanCommand } from './commands/scan.ts';
 import { transferCommand } from './commands/transfer.ts';
+import { stmCommand } from './commands/stm.ts';
+import { matchCommand } from './commands/match.ts';
 import { PIPE_CLOSED_STATUS, PipeClosed, type CliIo, type Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
-  plotCommand, transferCommand, fitCommand, metalsCommand, presetsCommand, benchCommand,
+  plotCommand, transferCommand, fitCommand, metalsCommand, stmCommand, matchCommand, presetsCommand, benchCommand,
 ];
 
 function overview(): string {

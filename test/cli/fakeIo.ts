@@ -1,7 +1,7 @@
 import type { CliIo } from '../../src/cli/io.ts';
 
 /** An in-memory CliIo: files in a map, stdout and stderr collected. */
-export function fakeIo(files: Record<string, string> = {}): CliIo & { stdout: () => string; stderr: () => string; files: Map<string, string | Uint8Array> } {
+export function fakeIo(files: Record<string, string | Uint8Array> = {}): CliIo & { stdout: () => string; stderr: () => string; files: Map<string, string | Uint8Array> } {
   const store = new Map<string, string | Uint8Array>(Object.entries(files));
   let out = '';
   let err = '';
@@ -14,6 +14,11 @@ export function fakeIo(files: Record<string, string> = {}): CliIo & { stdout: ()
       const content = store.get(path);
       if (content === undefined) throw Object.assign(new Error(`ENOENT: ${path}`), { code: 'ENOENT' });
       return typeof content === 'string' ? content : new TextDecoder().decode(content);
+    },
+    readBytes: (path) => {
+      const content = store.get(path);
+      if (content === undefined) throw Object.assign(new Error(`ENOENT: ${path}`), { code: 'ENOENT' });
+      return typeof content === 'string' ? new TextEncoder().encode(content) : content;
     },
     writeFile: (path, data) => {
       if (path.startsWith('/readonly/')) throw Object.assign(new Error('EACCES'), { code: 'EACCES' });

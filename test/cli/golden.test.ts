@@ -22,8 +22,8 @@ function rounded(value: unknown): unknown {
   return value;
 }
 
-async function matchesGolden(name: string, argv: string[]): Promise<void> {
-  const io = fakeIo();
+async function matchesGolden(name: string, argv: string[], files: Record<string, string | Uint8Array> = {}): Promise<void> {
+  const io = fakeIo(files);
   expect(await runCli(argv, io)).toBe(0);
   const actual = `${JSON.stringify(rounded(JSON.parse(io.stdout())), null, 1)}\n`;
   const file = join(GOLDEN, `${name}.json`);
@@ -41,7 +41,16 @@ describe('CLI golden files', () => {
   for (const preset of SHEET_PRESETS) {
     it(`fill ${preset.name} --mesh 12 --json`, () => matchesGolden(`fill-${preset.name}`, ['fill', preset.name, '--mesh', '12', '--json']));
     it(`bonding ${preset.name} --mesh 12 --json`, () => matchesGolden(`bonding-${preset.name}`, ['bonding', preset.name, '--mesh', '12', '--json']));
+    // The honeycomb's E_F lies mid-gap in this model (fill), 1.5 eV from either edge: its window needs 2 V.
+    const bias = preset.name === 'honeycomb' ? '2' : '1';
+    it(`stm ${preset.name} --pixels 32 --mesh 8 --bias ${bias} --json`, () => matchesGolden(`stm-${preset.name}`, ['stm', preset.name, '--pixels', '32', '--mesh', '8', '--bias', bias, '--png', 'p.png', '--json']));
   }
+  it('match (a 128×128 stm picture of beta12) --sites 4-8 --json', async () => {
+    const io = fakeIo();
+    expect(await runCli(['stm', 'beta12', '--pixels', '128', '--cells', '12', '--mesh', '12', '--png', 'b.png', '--json'], io)).toBe(0);
+    const pixelSize = String(JSON.parse(io.stdout()).pixel_size);
+    await matchesGolden('match-beta12', ['match', 'b.png', '--pixel-size', pixelSize, '--sites', '4-8', '--mesh', '12', '--json'], { 'b.png': io.files.get('b.png') as Uint8Array });
+  });
   it('bands honeycomb --path auto --points 12 --json', () => matchesGolden('bands-honeycomb', ['bands', 'honeycomb', '--path', 'auto', '--points', '12', '--json']));
   it('enumerate --sites 1-6 --holes 0-6 --json', () => matchesGolden('enumerate-1-6', ['enumerate', '--sites', '1-6', '--holes', '0-6', '--json']));
   it('transfer beta12 --substrate ag111 --mesh 12 --json', () => matchesGolden('transfer-beta12-ag111', ['transfer', 'beta12', '--substrate', 'ag111', '--mesh', '12', '--json']));

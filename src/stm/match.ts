@@ -1,0 +1,125 @@
+/**
+ * Matching a measured picture to vacancy patterns: the isolated-hole patterns of the enumerator (src/enumerate) with
+ * N sites in a range whose smallest cell fits the measured lattice or one of its sublattices of small index
+ * (src/stm/correspondence.ts) are simulated (src/stm/simulate.ts) on that cell's fractional grid, for every fitting
+ * choice of cell vectors, and ranked by the best Pearson correlation with the picture folded onto the same cell
+ * (src/stm/fold.ts, src/stm/similarity.ts) over those choices and all translations. Registration is thus by the
+ * lattice itself: rotation, scale and shear come from the fitted cell, translation from the correlation.
+ * A high score says the model picture looks alike, not that the pattern is there: experiment and higher-level
+ * calculations decide.
+ */
+import { enumerateStructures } from '../enumerate/enumerate.ts';
+import type { Structure } from '../enumerate/types.ts';
+import { patternToSheet } from '../lattice/pattern.ts';
+import { reducedSheet } from '../lattice/reducedCell.ts';
+import type { ParameterSet } from '../tb/params.ts';
+import { TightBindingModel } from '../tb/model.ts';
+import type { Analysis } from './analyse.ts';
+import { CELL_TOLERANCE, correspondences, sublattices, type CellTolerance, type Correspondence } from './correspondence.ts';
+import { foldPicture } from './fold.ts';
+import { realCell } from './lattice.ts';
+import { bestCorrelation } from './similarity.ts';
+import { evaluateStm, stmModel, type StmOptions } from './simulate.ts';
+
+export interface MatchOptions {
+  /** Lattice sites N per cell, inclusive (default [2, 12]). */
+  sites?: [number, number];
+  /** Candidates returned (default 5). */
+  top?: number;
+  /** Bond d (Å) of the candidates (default 1.69). */
+  bond?: number;
+  tolerance?: CellTolerance;
+  /** Largest index of the sublattices of the measured lattice tried as the true cell (default 4). */
+  maxIndex?: number;
+  parameters: ParameterSet;
+  /** The simulation of each candidate (default mesh 24, as stm). */
+  stm?: StmOptions;
+  /** Called after each structure examined, with the count so far. */
+  onProgress?: (examined: number) => void;
+}
+
+export interface MatchCandidate {
+  structure: Structure;
+  /** Best Pearson correlation, in [−1, 1]. */
+  score: number;
+  /** Fitted cell over candidate cell (√ of the area ratio). */
+  scale: number;
+  /** Candidate cell area over the measured lattice's cell area (1: the measured cell itself). */
+  index: number;
+  /** Shift (fraction of the fitted cell vectors) of the model against the measured motif. */
+  shift: [number, number];
+}
+
+export interface MatchResult {
+  candidates: MatchCandidate[];
+  /** Structures enumerated. */
+  examined: number;
+  /** Structures whose cell fits (each simulated once). */
+  fitting: number;
+  /** Fitting structures not scored: no state in the bias window (E_F in a gap of the model wider than the bias). */
+  emptyWindow: Structure[];
+}
+
+export const MATCH_DEFAULTS = { sites: [2, 12] as [number, number], top: 5, bond: 1.69, mesh: 24, maxIndex: 4 };
+
+export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options: MatchOptions): MatchResult {
+  const sites = options.sites ?? MATCH_DEFAULTS.sites;
+  const tolerance = options.tolerance ?? CELL_TOLERANCE;
+  const { lattice, bins, values, width, height, pixelSize } = analysis;
+  const targets = sublattices(lattice.vectors, options.maxIndex ?? MATCH_DEFAULTS.maxIndex);
+  const motifs = new Map<number, Float64Array>();
+  const motif = (t: number): Float64Array => {
+    let m = motifs.get(t);
+    if (!m) {
+      const [u, v] = targets[t].vectors;
+      const reciprocal = realCell([u[0] / pixelSize, u[1] / pixelSize], [v[0] / pixelSize, v[1] / pixelSize]);
+      m = foldPicture(values, width, height, reciprocal, bins);
+      motifs.set(t, m);
+    }
+    return m;
+  };
+  const found: MatchCandidate[] = [];
+  let examined = 0;
+  let fitting = 0;
+  const emptyWindow: Structure[] = [];
+  const points = bins * bins;
+  for (const structure of enumerateStructures({ sites, holes: [1, sites[1]], isolated: true, bond: options.bond ?? MATCH_DEFAULTS.bond })) {
+    examined++;
+    options.onProgress?.(examined);
+    const sheet = patternToSheet(structure.pattern);
+    if (sheet.atoms.length === 0) continue;
+    const cell = reducedSheet(sheet).cell;
+    const fits: { target: number; fit: Correspondence }[] = [];
+    targets.forEach((target, t) => {
+      for (const fit of correspondences(cell, target.vectors, tolerance)) fits.push({ target: t, fit });
+    });
+    if (fits.length === 0) continue;
+    fitting++;
+    const stm = stmModel(new TightBindingModel(sheet, options.parameters), { mesh: MATCH_DEFAULTS.mesh, ...options.stm });
+    if (!(stm.states > 1e-6)) {
+      emptyWindow.push(structure);
+      continue;
+    }
+    const x = new Float64Array(points * fits.length), y = new Float64Array(points * fits.length);
+    fits.forEach(({ fit: { vectors: [u, v] } }, f) => {
+      for (let i = 0; i < bins; i++) {
+        for (let j = 0; j < bins; j++) {
+          const s = (i + 0.5) / bins, t = (j + 0.5) / bins;
+          x[f * points + i * bins + j] = s * u[0] + t * v[0];
+          y[f * points + i * bins + j] = s * u[1] + t * v[1];
+        }
+      }
+    });
+    const model = evaluateStm(stm, x, y, new Float64Array(x.length));
+    let best: MatchCandidate | undefined;
+    fits.forEach(({ target, fit }, f) => {
+      const { score, shift } = bestCorrelation(motif(target), model.subarray(f * points, (f + 1) * points), bins);
+      if (!best || score > best.score) {
+        best = { structure, score, scale: fit.scale, index: targets[target].index, shift: [shift[0] / bins, shift[1] / bins] };
+      }
+    });
+    if (best) found.push(best);
+  }
+  found.sort((p, q) => q.score - p.score);
+  return { candidates: found.slice(0, options.top ?? MATCH_DEFAULTS.top), examined, fitting, emptyWindow };
+}
