@@ -15,17 +15,7 @@ import { svgText } from '../src/figures/serialize.ts';
 import { makePattern, patternToSheet } from '../src/lattice/pattern.ts';
 import { findSheetPreset } from '../src/lattice/presets.ts';
 import { findParameterPreset, type ParameterSet } from '../src/tb/params.ts';
-
-function best(runs: number, task: () => unknown): number {
-  task();
-  let fastest = Infinity;
-  for (let r = 0; r < runs; r++) {
-    const start = performance.now();
-    task();
-    fastest = Math.min(fastest, performance.now() - start);
-  }
-  return fastest;
-}
+import { best } from './best.ts';
 
 export async function benchFigures(): Promise<void> {
   const params = findParameterPreset('harrison1980') as ParameterSet;

@@ -17,18 +17,7 @@ import { fill, fillSpectrum } from '../src/tb/fill.ts';
 import { meshSpectrum } from '../src/tb/meshSpectrum.ts';
 import { TightBindingModel } from '../src/tb/model.ts';
 import { findParameterPreset, type ParameterSet } from '../src/tb/params.ts';
-
-/** Best wall time (ms) of `runs` calls after one warm-up call. */
-function best(runs: number, task: () => unknown): number {
-  task();
-  let fastest = Infinity;
-  for (let r = 0; r < runs; r++) {
-    const start = performance.now();
-    task();
-    fastest = Math.min(fastest, performance.now() - start);
-  }
-  return fastest;
-}
+import { best } from './best.ts';
 
 export async function benchTightBinding(): Promise<void> {
   const params = findParameterPreset('harrison1980') as ParameterSet;

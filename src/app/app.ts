@@ -25,6 +25,7 @@ import { changeSupercell, resolveSheetChoice, toggleSite, type ResolvedSheet } f
 import { parameterSet, writeHash, type ViewState } from './state.ts';
 import { Cancelled, WorkerLane } from './worker/client.ts';
 import type { SpectraInput, SpectraOutput } from './worker/modelWorker.ts';
+import { NO_SPECTRUM } from './worker/protocol.ts';
 
 /** Points on the automatic path, as the CLI's default. */
 export const PATH_POINTS = 300;
@@ -334,6 +335,7 @@ export class App {
       this.bonding = output.bonding;
       this.drawSpectra();
     } catch (error) {
+      if (error instanceof Error && error.message === NO_SPECTRUM) return this.computeSpectra();
       this.jobFailed(error);
     }
   }
@@ -354,7 +356,8 @@ export class App {
   async loadState(): Promise<void> {
     const pick = this.state.pick;
     const spectra = this.spectra;
-    if (!pick || !spectra) return;
+    // While new spectra are computed the drawn bands are stale: the pick is loaded when they arrive.
+    if (!pick || !spectra || this.model.busy) return;
     if (!(pick.kIndex < spectra.path.count && pick.band < spectra.path.bands)) {
       this.notices.show(`invalid pick: "${pick.kIndex},${pick.band}" (the path has ${spectra.path.count} points and ${spectra.path.bands} bands)`);
       this.state = { ...this.state, pick: undefined };

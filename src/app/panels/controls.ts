@@ -91,9 +91,15 @@ export function wireControls(app: App, doc: Document): void {
     for (const [name, value] of Object.entries(values)) (form.elements.namedItem(name) as HTMLInputElement).value = String(value);
   };
 
+  // The pickers are rebuilt only when what they list changed (not on every doping-slider frame).
+  let pickersKey = '';
   const refresh = () => {
-    fillSheetSelect();
-    fillParamsSelect();
+    const key = JSON.stringify([app.state.sheet.kind === 'preset' ? app.state.sheet.name : app.resolved.label, app.state.params, app.library]);
+    if (key !== pickersKey) {
+      pickersKey = key;
+      fillSheetSelect();
+      fillParamsSelect();
+    }
     dopingRange.value = String(Math.max(-1, Math.min(2, app.state.doping)));
     if (doc.activeElement !== doping) doping.value = String(app.state.doping);
     smearing.value = String(app.state.smearing);

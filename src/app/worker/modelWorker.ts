@@ -11,7 +11,7 @@ import { fillSpectrum } from '../../tb/fill.ts';
 import { TightBindingModel } from '../../tb/model.ts';
 import type { ParameterSet } from '../../tb/params.ts';
 import { sigmaBonding, type SigmaBondingResult } from '../../tb/sigmaBonding.ts';
-import { serveJobs } from './protocol.ts';
+import { NO_SPECTRUM, serveJobs } from './protocol.ts';
 
 export interface SpectraInput {
   label: string;
@@ -64,7 +64,7 @@ serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
   },
   /** A new Gaussian width on the kept spectrum: DOS, E_F and the σ-bonding analysis again, no diagonalisation. */
   width: (input: WidthInput & { eta: number; etaEstimated: boolean }) => {
-    if (!last) throw new Error('no spectrum kept; compute the spectra first');
+    if (!last) throw new Error(NO_SPECTRUM);
     const spectrum = last.spectrum;
     const dos = gaussianDos(spectrum, energyGrid(spectrum), input.smearing);
     const fermi = fillSpectrum(spectrum, { doping: input.doping, smearing: input.smearing }).fermi;
@@ -73,7 +73,7 @@ serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
   },
   /** One Bloch state on the kept path (the sheet and parameters are those of the last spectra). */
   state: (input: StateInput) => {
-    if (!last) throw new Error('no spectrum kept; compute the spectra first');
+    if (!last) throw new Error(NO_SPECTRUM);
     return { value: prepareState(input.sheet, input.params, last.path, input.kIndex, input.band) };
   },
 });

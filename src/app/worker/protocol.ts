@@ -3,6 +3,9 @@
  * progress messages and then exactly one result or error for that id. Cancelling is done by the page: it ends
  * the worker and starts a fresh one (the core is synchronous, so a running job cannot be interrupted inside).
  */
+/** The model worker's answer when it holds no spectrum (it was ended by a cancel): the page computes anew. */
+export const NO_SPECTRUM = 'the model worker holds no spectrum';
+
 export interface JobRequest<Input = unknown> {
   id: number;
   job: string;

@@ -3,7 +3,7 @@
  */
 import { invalid, namingSource, ValidationError } from '../../io/invalid.ts';
 import { parseKpointsText } from '../../io/kpointsFile.ts';
-import { autoPath, computeBands, type BandResult, type KPath } from '../../tb/index.ts';
+import { autoPath, computeBands, type KPath } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { checkOutputPath, writeNamedFile, type Command, type CliIo } from '../io.ts';
 import { JSON_FLAG, OVERWRITE_FLAG, PARAMS_FLAG, PROGRESS_FLAG, SHEET_ARGUMENT } from '../commonFlags.ts';
@@ -11,6 +11,7 @@ import { buildModel, resolveParameters } from '../parameters.ts';
 import { estimatedSeconds } from '../workEstimate.ts';
 import { resolveSheet } from '../sheetArgument.ts';
 import { ProgressLine } from '../progress.ts';
+import { bandsCsv } from '../../io/csv.ts';
 
 const spec: CommandSpec = {
   name: 'bands',
@@ -41,21 +42,6 @@ function rows(values: Float64Array, count: number, width: number): number[][] {
   const out: number[][] = [];
   for (let k = 0; k < count; k++) out.push(Array.from(values.subarray(k * width, (k + 1) * width)));
   return out;
-}
-
-export function bandsCsv(kpoints: Float64Array, result: BandResult, path?: KPath): string {
-  const header = ['k_index', 'kx', 'ky', ...(path ? ['distance'] : [])];
-  for (let b = 0; b < result.bands; b++) header.push(`e${b + 1}`);
-  for (let b = 0; b < result.bands; b++) header.push(`sigma${b + 1}`);
-  const lines = [header.join(',')];
-  for (let k = 0; k < result.count; k++) {
-    const cells: (number | string)[] = [k, kpoints[2 * k], kpoints[2 * k + 1]];
-    if (path) cells.push(path.distance[k]);
-    for (let b = 0; b < result.bands; b++) cells.push(result.energies[k * result.bands + b]);
-    for (let b = 0; b < result.bands; b++) cells.push(result.sigmaWeight[k * result.bands + b]);
-    lines.push(cells.join(','));
-  }
-  return `${lines.join('\n')}\n`;
 }
 
 function run(argv: readonly string[], io: CliIo): number {
@@ -96,7 +82,7 @@ function run(argv: readonly string[], io: CliIo): number {
   const result = computeBands(model, kpoints, { onProgress: (done, total) => progress.update(done, done / total) });
   progress.done();
 
-  if (flags.csv !== undefined) writeNamedFile(io, '--csv', flags.csv as string, bandsCsv(kpoints, result, path));
+  if (flags.csv !== undefined) writeNamedFile(io, '--csv', flags.csv as string, bandsCsv({ ...result, kpoints, distance: path?.distance }));
   if (flags.json) {
     const document: Record<string, unknown> = {
       kpoints: rows(kpoints, count, 2),

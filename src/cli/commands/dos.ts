@@ -1,11 +1,12 @@
 /**
  * `lacuna dos`: total and σ/π-projected density of states, by Gaussian broadening or the linear triangle method.
  */
-import { energyGrid, fillSpectrum, gaussianDos, triangleDos, type DosResult } from '../../tb/index.ts';
+import { energyGrid, fillSpectrum, gaussianDos, triangleDos } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG, KSPACING_FLAG, MESH_FLAG, MODEL_CAVEAT, OVERWRITE_FLAG, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG, PROGRESS_FLAG } from '../commonFlags.ts';
 import { checkOutputPath, writeNamedFile, type Command, type CliIo } from '../io.ts';
 import { meshJson, resolveSpectrum } from '../parameters.ts';
+import { dosCsv } from '../../io/csv.ts';
 
 const spec: CommandSpec = {
   name: 'dos',
@@ -24,12 +25,6 @@ const spec: CommandSpec = {
     progress: PROGRESS_FLAG,
   },
 };
-
-function dosCsv(dos: DosResult): string {
-  const lines = ['energy_eV,total,sigma,pi'];
-  for (let i = 0; i < dos.energy.length; i++) lines.push(`${dos.energy[i]},${dos.total[i]},${dos.sigma[i]},${dos.pi[i]}`);
-  return `${lines.join('\n')}\n`;
-}
 
 function run(argv: readonly string[], io: CliIo): number {
   const { positionals, flags } = parseArgs(spec, argv);
