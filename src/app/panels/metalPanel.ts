@@ -58,18 +58,13 @@ export class MetalPanel {
     const form = $<HTMLFormElement>(doc, '#metal-form');
     for (const field of ALIGNMENT_FIELDS) {
       const input = form.elements.namedItem(field) as HTMLInputElement;
-      input.placeholder = `${ALIGNMENT_DEFAULTS[field].value} (estimate)`;
+      input.placeholder = String(ALIGNMENT_DEFAULTS[field].value);
       input.addEventListener('change', () => this.readFields(field));
     }
     $<HTMLButtonElement>(doc, '#metal-estimates').addEventListener('click', () => {
       for (const input of form.querySelectorAll('input')) input.value = '';
       this.readFields();
     });
-    $<HTMLUListElement>(doc, '#metal-origins').replaceChildren(...ALIGNMENT_FIELDS.map((field) => {
-      const item = doc.createElement('li');
-      item.textContent = `${METAL_FIELD_NAMES[field]} = ${ALIGNMENT_DEFAULTS[field].value}: ${ALIGNMENT_DEFAULTS[field].origin}`;
-      return item;
-    }));
     $<HTMLButtonElement>(doc, '#use-doping').addEventListener('click', () => {
       const given = this.transfer?.alignment.electronsPerAtom;
       // Rounded to 0.0001 e/atom: a readable doping field; the alignment itself is no better than that.
@@ -91,6 +86,7 @@ export class MetalPanel {
     const texts = Object.fromEntries(ALIGNMENT_FIELDS.map((f) => [f, input(f).value])) as Record<AlignmentField, string>;
     const { model, errors } = readMetalFields(texts, this.app.state.metal.model, edited);
     for (const field of ALIGNMENT_FIELDS) input(field).classList.remove('invalid');
+    $<HTMLElement>(this.doc, '#metal-error').textContent = errors.map((e) => e.message).join('; ');
     for (const error of errors) {
       this.app.notices.show(`${error.message} — the other fields are used; this one keeps its last good value`);
       const field = ALIGNMENT_FIELDS.find((f) => METAL_FIELD_NAMES[f] === error.field);
@@ -114,14 +110,28 @@ export class MetalPanel {
         input.classList.remove('invalid');
       }
     }
-    const metal = findSubstrate(state.name)!;
-    const height = metal.adsorptionHeight
-      ? `A boron sheet sits about ${metal.adsorptionHeight.value} Å above it (${metal.adsorptionHeight.source}); the model's d is the graphene value unless you set it.`
-      : metal.adsorptionHeightNote ?? '';
-    $<HTMLElement>(this.doc, '#metal-source').textContent = `${metal.title}: work function W_M = ${metal.workFunction} eV (${metal.workFunctionSource}); surface spacing ${metal.nnDistance.toFixed(3)} Å. ${height}`;
+    this.drawSources(state.name);
     void this.computeTransfer();
     void this.computeFits();
     void this.computeMap(false);
+  }
+
+  /** The metal's numbers in one short line; every source, and the model's estimates, under "where these numbers come from". */
+  private drawSources(name: string): void {
+    const metal = findSubstrate(name)!;
+    const height = metal.adsorptionHeight ? ` · a boron sheet sits about ${metal.adsorptionHeight.value} Å above it (estimate)` : '';
+    $<HTMLElement>(this.doc, '#metal-source').textContent = `work function W_M = ${metal.workFunction} eV · surface spacing ${metal.nnDistance.toFixed(3)} Å${height}. The model's d is graphene's unless you set it.`;
+    const item = (text: string) => {
+      const li = this.doc.createElement('li');
+      li.textContent = text;
+      return li;
+    };
+    $<HTMLUListElement>(this.doc, '#metal-origins').replaceChildren(
+      item(`${metal.title} work function: ${metal.workFunctionSource}`),
+      item(`${metal.title} lattice constant ${metal.latticeConstant} Å: ${metal.latticeSource}`),
+      item(metal.adsorptionHeight ? `height ${metal.adsorptionHeight.value} Å: ${metal.adsorptionHeight.source}` : `height: ${metal.adsorptionHeightNote ?? 'none known'}`),
+      ...ALIGNMENT_FIELDS.map((field) => item(`${METAL_FIELD_NAMES[field]} = ${ALIGNMENT_DEFAULTS[field].value}: ${ALIGNMENT_DEFAULTS[field].origin}`)),
+    );
   }
 
   // --- the three numbers -----------------------------------------------------------------------------------------
