@@ -163,3 +163,13 @@ export function etaDeltaFigure(data: EtaDeltaData, options: EtaDeltaOptions): SV
   drawCaption(frame, lk.publication ? title : 'η–δ map: electrons wanted (curve, dashes) and given (markers); stars observed', 6);
   return frame.svg.node()!;
 }
+
+/** Brings one metal's markers forward (the others faded), or all back with null: attributes only, no redraw. */
+export function setMetalFocus(svg: Element, metal: string | null): void {
+  svg.setAttribute('data-focus', metal ?? '');
+  for (const element of svg.querySelectorAll('[data-layer="points"] path[data-metal], [data-legend-metal]')) {
+    const name = element.getAttribute('data-metal') ?? element.getAttribute('data-legend-metal');
+    if (metal === null || name === metal) element.removeAttribute('opacity');
+    else element.setAttribute('opacity', '0.3');
+  }
+}

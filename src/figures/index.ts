@@ -6,7 +6,7 @@ export { dosFigure, type DosOptions } from './dos.ts';
 export { zoneFigure, setZoneMarker, type ZoneOptions } from './zone.ts';
 export { sheetFigure, type SheetOptions } from './sheet.ts';
 export { setFermi, setRule } from './energyPlot.ts';
-export { etaDeltaFigure, metalMarker, type EtaDeltaOptions } from './etaDelta.ts';
+export { etaDeltaFigure, metalMarker, setMetalFocus, type EtaDeltaOptions } from './etaDelta.ts';
 export { svgText, serializeFigure } from './serialize.ts';
 export { SIGMA_COLOUR, PI_COLOUR, shareColour, phaseColour } from './palette.ts';
 export { FONT_FAMILY } from './look.ts';

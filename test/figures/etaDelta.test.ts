@@ -1,6 +1,6 @@
 import { lab } from 'd3';
 import { describe, expect, it } from 'vitest';
-import { etaDeltaFigure } from '../../src/figures/etaDelta.ts';
+import { etaDeltaFigure, setMetalFocus } from '../../src/figures/etaDelta.ts';
 import { readLinear } from '../../src/figures/frame.ts';
 import { METAL_COLOURS } from '../../src/figures/palette.ts';
 import { countingRuleDoping } from '../../src/tb/countingRule.ts';
@@ -52,6 +52,18 @@ describe('etaDeltaFigure(data, options)', () => {
     const svg = etaDeltaFigure(data, { document });
     expect(Number(svg.querySelector('[data-layer="current"]')!.getAttribute('data-eta'))).toBe(1 / 9);
     expect(etaDeltaFigure({ ...data, current: undefined }, { document }).querySelector('[data-layer="current"]')).toBeNull();
+  });
+
+  it('setMetalFocus fades the other metals’ markers and legend entries, and null brings them back, without redrawing', () => {
+    const svg = etaDeltaFigure(data, { document });
+    const elements = svg.querySelectorAll('*').length;
+    setMetalFocus(svg, 'cu111');
+    expect(svg.querySelector('[data-point="alpha"] path[data-metal="cu111"]')!.hasAttribute('opacity')).toBe(false);
+    expect(svg.querySelector('[data-point="alpha"] path[data-metal="ag111"]')!.getAttribute('opacity')).toBe('0.3');
+    expect(svg.querySelector('[data-legend-metal="al111"]')!.getAttribute('opacity')).toBe('0.3');
+    setMetalFocus(svg, null);
+    expect(svg.querySelectorAll('[opacity="0.3"]').length).toBe(0);
+    expect(svg.querySelectorAll('*').length).toBe(elements);
   });
 
   it('metal colours differ pairwise by more than 15 in CIELAB L* (greyscale and every colour-vision type keep them apart; common practice)', () => {

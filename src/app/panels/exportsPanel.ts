@@ -35,7 +35,7 @@ export function publicationFigure(app: App, doc: Document, figure: string, metal
   const spectra = app.spectra;
   const options = { document: doc, style: 'publication' as const };
   if (figure === 'sheet') return sheetFigure(app.sheetData(), options);
-  if (figure === 'eta-delta') return metal?.map ? etaDeltaFigure(metal.map, options) : undefined;
+  if (figure === 'eta-delta') return metal?.etaDelta.map ? etaDeltaFigure(metal.etaDelta.map, options) : undefined;
   if (!spectra) return undefined;
   const energyRange = SpectrumView.energyRange(spectra, app.energyWindow.low, app.energyWindow.high);
   const rule = app.ruleEnergy() ?? null;

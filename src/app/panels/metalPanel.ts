@@ -2,51 +2,44 @@
  * The Metal panel: a metal (111) surface and the interface model's fields; for the current sheet the electrons per
  * atom the counting rule asks, the model's σ filling asks and the Fermi-level alignment gives (on the page's kept
  * mesh spectrum, no new diagonalisation), with "use this doping"; the sheet's coincidence fits on the metal; and
- * the η–δ map. All heavy work runs in the substrate worker, three lanes so that no job cancels another kind.
+ * the η–δ map (etaDeltaMap.ts). All heavy work runs in the substrate worker, three lanes so that no job cancels
+ * another kind.
  */
-import { etaDeltaFigure } from '../../figures/etaDelta.ts';
-import type { EtaDeltaData } from '../../figures/types.ts';
 import { ValidationError } from '../../io/invalid.ts';
 import { cellMetrics } from '../../lattice/reducedCell.ts';
-import { SHEET_PRESETS } from '../../lattice/presets.ts';
-import type { Pattern } from '../../lattice/sheet.ts';
 import type { AlignmentField } from '../../substrate/alignmentLimits.ts';
 import { ALIGNMENT_DEFAULTS } from '../../substrate/defaults.ts';
 import { findSubstrate, SUBSTRATES } from '../../substrate/substrates.ts';
 import type { TransferResult } from '../../substrate/transfer.ts';
 import type { App } from '../app.ts';
 import { ALIGNMENT_FIELDS, METAL_FIELD_NAMES, readMetalFields } from '../metalFields.ts';
-import { parameterSet, type MetalState } from '../state.ts';
+import type { MetalState } from '../state.ts';
 import { Cancelled, WorkerLane } from '../worker/client.ts';
 import type { FitsOutput } from '../worker/substrateWorker.ts';
+import { EtaDeltaMap, type Listed } from './etaDeltaMap.ts';
 import { drawFits } from './fitsTable.ts';
 
 const $ = <T extends Element>(doc: Document, selector: string) => doc.querySelector<T>(selector)!;
 const signed = (x: number, digits = 3) => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(digits)}`;
 
-/** Mesh of the η–δ map: one mesh spectrum per candidate (the `metals` command's default). */
-export const MAP_MESH = 24;
-/** Most listed candidates placed on the map. */
-export const MAP_MOST = 60;
 /** Fits shown in the table. */
 const FITS_SHOWN = 12;
 
 export class MetalPanel {
   private readonly transferLane: WorkerLane;
   private readonly fitsLane: WorkerLane;
-  private readonly mapLane: WorkerLane;
+  readonly etaDelta: EtaDeltaMap;
   /** The last transfer shown (for "use this doping"). */
   transfer: TransferResult | undefined;
-  map: EtaDeltaData | undefined;
   private shownMetal: MetalState | undefined;
   private fitsKey = '';
-  private mapKey = '';
   private transferKey: unknown[] = [];
+  private sourcesShown = '';
 
-  constructor(private readonly app: App, private readonly doc: Document, createWorker: () => Worker, private readonly listed: () => readonly { phase?: string; pattern: Pattern }[]) {
+  constructor(private readonly app: App, private readonly doc: Document, createWorker: () => Worker, listed: () => readonly Listed[]) {
     this.transferLane = new WorkerLane(createWorker, 'alignment');
     this.fitsLane = new WorkerLane(createWorker, 'fits');
-    this.mapLane = new WorkerLane(createWorker, 'map');
+    this.etaDelta = new EtaDeltaMap(app, doc, new WorkerLane(createWorker, 'map'), listed);
     const select = $<HTMLSelectElement>(doc, '#metal-select');
     select.replaceChildren(...SUBSTRATES.map((s) => {
       const option = doc.createElement('option');
@@ -71,9 +64,6 @@ export class MetalPanel {
       if (given !== undefined) void app.edit({ doping: Number(given.toFixed(4)) }, 'fermi');
     });
     $<HTMLButtonElement>(doc, '#fits-cancel').addEventListener('click', () => this.fitsLane.cancel());
-    $<HTMLButtonElement>(doc, '#map-cancel').addEventListener('click', () => this.mapLane.cancel());
-    $<HTMLButtonElement>(doc, '#map-redraw').addEventListener('click', () => void this.computeMap(true));
-    for (const radio of doc.querySelectorAll<HTMLInputElement>('input[name="map-source"]')) radio.addEventListener('change', () => void this.computeMap(true));
     app.onChange.push(() => this.refresh());
     app.onSpectra.push(() => void this.computeTransfer());
     this.refresh();
@@ -110,14 +100,15 @@ export class MetalPanel {
         input.classList.remove('invalid');
       }
     }
-    this.drawSources(state.name);
+    if (this.sourcesShown !== state.name) this.drawSources(state.name);
     void this.computeTransfer();
     void this.computeFits();
-    void this.computeMap(false);
+    void this.etaDelta.update(false);
   }
 
   /** The metal's numbers in one short line; every source, and the model's estimates, under "where these numbers come from". */
   private drawSources(name: string): void {
+    this.sourcesShown = name;
     const metal = findSubstrate(name)!;
     const height = metal.adsorptionHeight ? ` · a boron sheet sits about ${metal.adsorptionHeight.value} Å above it (estimate)` : '';
     $<HTMLElement>(this.doc, '#metal-source').textContent = `work function W_M = ${metal.workFunction} eV · surface spacing ${metal.nnDistance.toFixed(3)} Å${height}. The model's d is graphene's unless you set it.`;
@@ -221,55 +212,6 @@ export class MetalPanel {
     } finally {
       if (!this.fitsLane.busy) progress.hidden = true;
     }
-  }
-
-  // --- the η–δ map ---------------------------------------------------------------------------------------------
-
-  private mapPatterns(): { patterns: { name?: string; pattern: Pattern }[]; note: string } {
-    const source = this.doc.querySelector<HTMLInputElement>('input[name="map-source"]:checked')?.value;
-    if (source === 'listed') {
-      const listed = this.listed();
-      if (listed.length > 0) {
-        const patterns = listed.slice(0, MAP_MOST).map((c) => (c.phase ? { name: c.phase, pattern: c.pattern } : { pattern: c.pattern }));
-        return { patterns, note: listed.length > MAP_MOST ? `the first ${MAP_MOST} of ${listed.length} listed candidates` : `${listed.length} listed candidates` };
-      }
-      this.app.notices.show('no candidates are listed yet: the map shows the named sheets (list candidates in the Candidates panel first)', 'info');
-    }
-    return { patterns: SHEET_PRESETS.map((p) => ({ name: p.name, pattern: p.pattern })), note: 'the named sheets' };
-  }
-
-  private async computeMap(force: boolean): Promise<void> {
-    const state = this.app.state;
-    const { patterns, note } = this.mapPatterns();
-    const current = { label: this.app.resolved.label, eta: this.app.resolved.eta };
-    const key = JSON.stringify([patterns.map((p) => [p.name, p.pattern.vacancies, p.pattern.supercell]), state.params, state.smearing, state.metal.model]);
-    if (key === this.mapKey && !force) {
-      if (this.map) this.drawMap({ ...this.map, current });
-      return;
-    }
-    this.mapKey = key;
-    const progress = $<HTMLElement>(this.doc, '#map-progress');
-    progress.hidden = false;
-    progress.querySelector('span')!.textContent = `placing ${note}…`;
-    try {
-      this.map = await this.mapLane.run<EtaDeltaData>('map', {
-        patterns, params: parameterSet(state.params), smearing: state.smearing, mesh: MAP_MESH, model: state.metal.model, current,
-      }, (done, total) => {
-        progress.querySelector('progress')!.value = total > 0 ? done / total : 0;
-        progress.querySelector('span')!.textContent = `${done} / ${total} patterns`;
-      });
-      this.drawMap({ ...this.map, current: { label: this.app.resolved.label, eta: this.app.resolved.eta } });
-    } catch (error) {
-      if (error instanceof Cancelled) this.mapKey = '';
-      this.failed(error, (message) => this.app.notices.show(`η–δ map: ${message}`));
-    } finally {
-      if (!this.mapLane.busy) progress.hidden = true;
-    }
-  }
-
-  private drawMap(data: EtaDeltaData): void {
-    this.map = data;
-    $<HTMLElement>(this.doc, '#eta-delta-host').replaceChildren(etaDeltaFigure(data, { document: this.doc }));
   }
 
   private failed(error: unknown, show: (message: string) => void): void {
