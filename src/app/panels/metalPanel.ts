@@ -35,6 +35,8 @@ export class MetalPanel {
   private fitsKey = '';
   private transferKey: unknown[] = [];
   private sourcesShown = '';
+  /** What the panel's jobs depend on, as last seen (identity). */
+  private deps: unknown[] = [];
 
   constructor(private readonly app: App, private readonly doc: Document, createWorker: () => Worker, listed: () => readonly Listed[]) {
     this.transferLane = new WorkerLane(createWorker, 'alignment');
@@ -100,6 +102,11 @@ export class MetalPanel {
         input.classList.remove('invalid');
       }
     }
+    // A doping edit (every slider frame) changes nothing the panel computes from: return at once.
+    const a = this.app;
+    const deps = [a.state.sheet, a.state.params, a.state.smearing, a.state.mesh, state, a.resolved];
+    if (deps.every((d, i) => d === this.deps[i])) return;
+    this.deps = deps;
     if (this.sourcesShown !== state.name) this.drawSources(state.name);
     void this.computeTransfer();
     void this.computeFits();
