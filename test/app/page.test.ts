@@ -227,6 +227,8 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     expect(rows[1]).toMatch(/σ filling asks\s+[+−]\d\.\d{3} e\/atom/);
     expect(rows[2]).toMatch(/alignment with Al\(111\) gives\s+[+−]\d\.\d{4} e\/atom/);
     expect(page.url()).toContain('metal=al111');
+    // The preset's own value and source shown (regression guard, not an outside check).
+    expect(await page.locator('#metal-source').innerText()).toMatch(/W_M = 4\.24 eV \(CRC Handbook of Chemistry and Physics, from memory\)/);
     expect(await page.locator('#metal-caveat').innerText()).toMatch(/not predictions.*weak coupling.*Al\(111\).*Li et al/s);
 
     // The map: the named sheets against the four metals, observations marked.

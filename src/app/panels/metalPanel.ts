@@ -118,7 +118,8 @@ export class MetalPanel {
     this.sourcesShown = name;
     const metal = findSubstrate(name)!;
     const height = metal.adsorptionHeight ? ` · a boron sheet sits about ${metal.adsorptionHeight.value} Å above it (estimate)` : '';
-    $<HTMLElement>(this.doc, '#metal-source').textContent = `work function W_M = ${metal.workFunction} eV · surface spacing ${metal.nnDistance.toFixed(3)} Å${height}. The model's d is graphene's unless you set it.`;
+    const source = metal.workFunctionSource.split(/[,;(]/)[0].trim();
+    $<HTMLElement>(this.doc, '#metal-source').textContent = `work function W_M = ${metal.workFunction} eV (${source}${/from memory/.test(metal.workFunctionSource) ? ', from memory' : ''}) · surface spacing ${metal.nnDistance.toFixed(3)} Å${height}. The model's d is graphene's unless you set it.`;
     const item = (text: string) => {
       const li = this.doc.createElement('li');
       li.textContent = text;
