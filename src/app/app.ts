@@ -67,6 +67,8 @@ export class App {
   readonly timings: Timings = {};
   /** Listeners told after every state change (controls refresh their fields). */
   readonly onChange: (() => void)[] = [];
+  /** Listeners told when a new mesh spectrum (or a new Gaussian width on it) is in `spectra` (the Metal panel). */
+  readonly onSpectra: (() => void)[] = [];
   energyWindow: { low?: number; high?: number } = {};
   private solver: FermiSolver | undefined;
   private readonly started = performance.now();
@@ -318,6 +320,7 @@ export class App {
       this.bonding = output.bonding;
       this.solver = new FermiSolver(output.data.spectrum);
       this.drawSpectra();
+      for (const listener of this.onSpectra) listener();
       if (this.state.pick) await this.loadState();
     } catch (error) {
       this.jobFailed(error);
@@ -334,6 +337,7 @@ export class App {
       this.spectra = { ...spectra, dos: output.dos, fermi: output.fermi, smearing: this.state.smearing };
       this.bonding = output.bonding;
       this.drawSpectra();
+      for (const listener of this.onSpectra) listener();
     } catch (error) {
       if (error instanceof Error && error.message === NO_SPECTRUM) return this.computeSpectra();
       this.jobFailed(error);

@@ -9,6 +9,7 @@ import { Notices } from './panels/notices.ts';
 import { wireControls, readNumber } from './panels/controls.ts';
 import { CandidatesPanel } from './panels/candidatesPanel.ts';
 import { wireExports } from './panels/exportsPanel.ts';
+import { MetalPanel } from './panels/metalPanel.ts';
 import { defaultState, readHash, type ViewState } from './state.ts';
 import { ValidationError } from '../io/invalid.ts';
 
@@ -55,8 +56,9 @@ const app = new App(
   () => new Worker(new URL('./worker/modelWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-model' }),
 );
 wireControls(app, document);
-wireExports(app, document);
 const candidates = new CandidatesPanel(app, document, () => new Worker(new URL('./worker/searchWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-search' }));
+const metal = new MetalPanel(app, document, () => new Worker(new URL('./worker/substrateWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-substrate' }), () => candidates.listed);
+wireExports(app, document, metal);
 
 if (opensDemo) {
   const note = $<HTMLElement>('#demo-note');
@@ -111,7 +113,7 @@ window.addEventListener('hashchange', () => {
 });
 
 // For the browser test and the benchmark it prints: the controller and its timings.
-(window as unknown as { lacuna: unknown }).lacuna = { app, candidates };
+(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal };
 
 void app.start().then(() => {
   if (opensDemo) void candidates.search();

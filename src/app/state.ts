@@ -4,7 +4,9 @@
  * Hash keys (our own): `sheet` (a preset name, or sheet-file JSON in either contract form — the CLI's SHEET
  * argument), `params` (a parameter-set preset name, or parameter-file JSON — the CLI's --params), `doping`,
  * `smearing`, `mesh` (the CLI's defaults and mesh rule when absent), `repeats`, `pick` (k index, band of the selected state),
- * `label`, and the candidate search: `sites`, `holes`, `eta`, `isolated`, `cell` (a,b,γ), `tolerance` (Å,°).
+ * `label`, the candidate search: `sites`, `holes`, `eta`, `isolated`, `cell` (a,b,γ), `tolerance` (Å,°), and the
+ * Metal panel: `metal` (a substrate preset name), `sheet-work-function`, `dipole` (eV), `distance`, `d0` (Å) —
+ * the alignment model's fields, absent when at their estimated defaults (the CLI's flag names).
  * Every field is validated like any input: a bad one is reported as `invalid URL <key>: <value> (<why>)` and
  * falls back to its default, the others are kept.
  */
@@ -14,6 +16,9 @@ import { parseSheetText } from '../io/sheetFile.ts';
 import { hnfRows } from '../lattice/pattern.ts';
 import { findSheetPreset, SHEET_PRESETS } from '../lattice/presets.ts';
 import type { Pattern, Sheet } from '../lattice/sheet.ts';
+import { ALIGNMENT_FLAG_LIMITS, type AlignmentField } from '../substrate/alignmentLimits.ts';
+import { requireSubstrate } from '../substrate/substrates.ts';
+import { alignmentParameters, type AlignmentParameters } from '../substrate/transfer.ts';
 import { DEFAULT_SMEARING } from '../tb/fill.ts';
 import { DEFAULT_PARAMETERS, findParameterPreset, PARAMETER_PRESETS, type ParameterSet } from '../tb/params.ts';
 
@@ -40,6 +45,13 @@ export interface SearchState {
   cell?: { a: number; b: number; gamma: number; lengthTolerance: number; angleTolerance: number };
 }
 
+/** The Metal panel: which substrate, and the alignment model's fields the user set (absent: the estimate). */
+export interface MetalState {
+  /** Substrate preset name (src/substrate/substrates.ts). */
+  name: string;
+  model: AlignmentParameters;
+}
+
 export interface ViewState {
   sheet: SheetChoice;
   params: ParamsChoice;
@@ -54,6 +66,7 @@ export interface ViewState {
   /** The selected Bloch state on the path, if any. */
   pick?: { kIndex: number; band: number };
   search: SearchState;
+  metal: MetalState;
 }
 
 /** Bounds of the view's own fields (the CLI's, where the CLI has one). */
@@ -63,6 +76,14 @@ export const LIMITS = {
   mesh: [1, 400] as const,
   repeats: [1, 8] as const,
   sites: [1, 24] as const,
+};
+
+/** Ag(111): the metal most boron sheets have been grown on. */
+export const DEFAULT_METAL = 'ag111';
+
+/** Hash keys of the alignment fields (the CLI's flag names). */
+export const ALIGNMENT_KEYS: Record<AlignmentField, string> = {
+  sheetWorkFunction: 'sheet-work-function', dipole: 'dipole', distance: 'distance', d0: 'd0',
 };
 
 export function defaultSearch(): SearchState {
@@ -77,6 +98,7 @@ export function defaultState(): ViewState {
     smearing: DEFAULT_SMEARING,
     repeats: 3,
     search: defaultSearch(),
+    metal: { name: DEFAULT_METAL, model: {} },
   };
 }
 
@@ -149,7 +171,7 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
   const state: ViewState = structuredClone(base);
   const errors: ValidationError[] = [];
   const params = new URLSearchParams(hash.replace(/^#/, ''));
-  const known = new Set(['sheet', 'params', 'doping', 'smearing', 'mesh', 'repeats', 'pick', 'label', 'sites', 'holes', 'eta', 'isolated', 'cell', 'tolerance']);
+  const known = new Set(['sheet', 'params', 'doping', 'smearing', 'mesh', 'repeats', 'pick', 'label', 'sites', 'holes', 'eta', 'isolated', 'cell', 'tolerance', 'metal', ...Object.values(ALIGNMENT_KEYS)]);
   const attempt = (action: () => void) => {
     try {
       action();
@@ -212,6 +234,22 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
       state.search.cell = { ...state.search.cell, lengthTolerance, angleTolerance };
     });
   }
+  const metal = get('metal');
+  if (metal !== undefined) attempt(() => { state.metal.name = requireSubstrate(metal, 'URL metal').name; });
+  for (const [field, key] of Object.entries(ALIGNMENT_KEYS) as [AlignmentField, string][]) {
+    const text = get(key);
+    const [low, high] = ALIGNMENT_FLAG_LIMITS[field];
+    if (text !== undefined) attempt(() => { state.metal.model[field] = numberField(key, text, low, high, false, false); });
+  }
+  // d ≥ d0 across the two fields: the one given is dropped (the other kept).
+  attempt(() => {
+    try {
+      alignmentParameters(state.metal.model, { distance: 'URL distance', d0: 'URL d0' });
+    } catch (error) {
+      if (error instanceof ValidationError) delete state.metal.model[error.field === 'URL d0' ? 'd0' : 'distance'];
+      throw error;
+    }
+  });
   return { state, errors };
 }
 
@@ -250,6 +288,11 @@ export function writeHash(state: ViewState): string {
     if (search.cell.lengthTolerance !== 0.15 || search.cell.angleTolerance !== 3) {
       out.set('tolerance', `${search.cell.lengthTolerance},${search.cell.angleTolerance}`);
     }
+  }
+  if (state.metal.name !== DEFAULT_METAL) out.set('metal', state.metal.name);
+  for (const [field, key] of Object.entries(ALIGNMENT_KEYS) as [AlignmentField, string][]) {
+    const value = state.metal.model[field];
+    if (value !== undefined) out.set(key, String(value));
   }
   // URLSearchParams writes spaces as '+'; keep the hash readable and exact with %20.
   return `#${out.toString().replace(/\+/g, '%20')}`;

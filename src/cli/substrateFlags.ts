@@ -2,6 +2,7 @@
  * Flags shared by the substrate commands (transfer, fit, metals), declared once, and the caveat under their output.
  */
 import { invalid } from '../io/invalid.ts';
+import { ALIGNMENT_FLAG_LIMITS as L } from '../substrate/alignmentLimits.ts';
 import { ALIGNMENT_DEFAULTS } from '../substrate/defaults.ts';
 import { requireSubstrate, SUBSTRATES, type Substrate } from '../substrate/substrates.ts';
 import { alignmentParameters, type AlignmentParameters } from '../substrate/transfer.ts';
@@ -13,10 +14,10 @@ export const SUBSTRATE_FLAG: FlagSpec = {
 
 /** --sheet-work-function, --dipole, --distance, --d0: the alignment model's inputs. */
 export const ALIGNMENT_FLAGS: Readonly<Record<string, FlagSpec>> = {
-  'sheet-work-function': { kind: 'number', min: 1, max: 8, placeholder: 'W_S', help: `work function of the free sheet in eV (default ${ALIGNMENT_DEFAULTS.sheetWorkFunction.value}, an estimate)` },
-  dipole: { kind: 'number', min: -5, max: 5, placeholder: 'Δc', help: `interface dipole from the chemical interaction in eV (default ${ALIGNMENT_DEFAULTS.dipole.value}, graphene's)` },
-  distance: { kind: 'number', min: 0.5, max: 10, placeholder: 'd', help: `sheet–metal distance in Å (default ${ALIGNMENT_DEFAULTS.distance.value}, graphene's)` },
-  d0: { kind: 'number', min: 0, max: 10, placeholder: 'd0', help: `offset of the interface charge layer in Å, d ≥ d0 (default ${ALIGNMENT_DEFAULTS.d0.value}, graphene's)` },
+  'sheet-work-function': { kind: 'number', min: L.sheetWorkFunction[0], max: L.sheetWorkFunction[1], placeholder: 'W_S', help: `work function of the free sheet in eV (default ${ALIGNMENT_DEFAULTS.sheetWorkFunction.value}, an estimate)` },
+  dipole: { kind: 'number', min: L.dipole[0], max: L.dipole[1], placeholder: 'Δc', help: `interface dipole from the chemical interaction in eV (default ${ALIGNMENT_DEFAULTS.dipole.value}, graphene's)` },
+  distance: { kind: 'number', min: L.distance[0], max: L.distance[1], placeholder: 'd', help: `sheet–metal distance in Å (default ${ALIGNMENT_DEFAULTS.distance.value}, graphene's)` },
+  d0: { kind: 'number', min: L.d0[0], max: L.d0[1], placeholder: 'd0', help: `offset of the interface charge layer in Å, d ≥ d0 (default ${ALIGNMENT_DEFAULTS.d0.value}, graphene's)` },
 };
 
 /** The required --substrate flag, resolved. */

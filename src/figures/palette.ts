@@ -43,3 +43,12 @@ export function phaseColour(phase: number): string {
   const degrees = (phase * 180) / Math.PI + PHASE_HUE_OFFSET;
   return hcl(((degrees % 360) + 360) % 360, 48, 62).formatHex();
 }
+
+/**
+ * Metals on the η–δ map, in the order given (the registry orders them by work function, so lightness rises with
+ * it): each pair differs by more than 15 in CIELAB L*, so the four stay apart in greyscale and for every type of
+ * colour vision; each metal also has its own marker shape, which carries the identity on its own.
+ */
+export const METAL_COLOURS = ['#20305f', '#a8326e', '#2f9c8f', '#d9c24a'] as const;
+/** Observations (experiment, not model output). */
+export const OBSERVED_COLOUR = INK;

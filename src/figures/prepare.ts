@@ -18,7 +18,9 @@ import { DEFAULT_MESH, meshSpectrum } from '../tb/meshSpectrum.ts';
 import { TightBindingModel } from '../tb/model.ts';
 import type { ParameterSet } from '../tb/params.ts';
 import { brillouinZone } from '../tb/zone.ts';
-import type { PathBands, SelectedState, SheetData, SpectraData } from './types.ts';
+import type { DopingMap } from '../substrate/dopingMap.ts';
+import { formatFraction } from './format.ts';
+import type { EtaDeltaData, PathBands, SelectedState, SheetData, SpectraData } from './types.ts';
 
 /** Points on the automatic k-path by default (as `lacuna bands --path auto`). */
 export const DEFAULT_PATH_POINTS = 300;
@@ -141,4 +143,34 @@ export function prepareState(sheet: Sheet, params: ParameterSet, path: PathBands
   return {
     kIndex, band, k: [kx, ky], energy: state.energy, weight: state.weight, phase: state.phase, sigma: state.sigma, parameters: params.name,
   };
+}
+
+/**
+ * The η–δ figure's data from a doping map (src/substrate/dopingMap.ts): plain numbers and labels, the patterns
+ * dropped; unnamed patterns labelled by their cell. `current` marks the page's sheet.
+ */
+export function prepareEtaDelta(map: DopingMap, current?: { label: string; eta: number }): EtaDeltaData {
+  const titles = new Map(map.metals.map((m) => [m.name, m.title]));
+  const data: EtaDeltaData = {
+    curve: map.curve.map((c) => ({ eta: c.eta, doping: c.doping })),
+    points: map.points.map((p) => ({
+      label: p.name ?? `${p.pattern.supercell.a * p.pattern.supercell.c} sites, ${p.pattern.vacancies.length} holes`,
+      eta: p.eta,
+      sigmaFilling: p.sigmaFilling,
+      dopings: Object.fromEntries(Object.entries(p.alignment).map(([name, a]) => [name, a.doping])),
+    })),
+    metals: map.metals.map((m) => ({ name: m.name, title: m.title, workFunction: m.workFunction })),
+    observed: map.observed.map((o) => {
+      const title = titles.get(o.substrate) ?? o.substrate;
+      const cite = o.source.replace(/,.*?\((\d{4})\).*$/, ' $1');
+      const what = o.doping !== undefined ? `about ${o.doping} e/B` : `η = ${o.holeDensities.map((h) => formatFraction(Math.round(h * 60), 60)).join(', ')}`;
+      return { metal: o.substrate, title, holeDensities: [...o.holeDensities], ...(o.doping !== undefined ? { doping: o.doping } : {}), label: `${title} seen: ${what} (${cite})`, source: o.source };
+    }),
+    parameters: map.parameters,
+    mesh: map.mesh,
+    smearing: map.smearing,
+    model: { ...map.model },
+  };
+  if (current) data.current = { ...current };
+  return data;
 }

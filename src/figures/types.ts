@@ -115,3 +115,50 @@ export interface SheetData {
   /** A selected Bloch state drawn on the atoms. */
   state?: SelectedState;
 }
+
+/** One metal on the η–δ map. */
+export interface EtaDeltaMetal {
+  name: string;
+  title: string;
+  /** W_M (eV). */
+  workFunction: number;
+}
+
+/** One candidate on the η–δ map. Dopings in electrons per B atom. */
+export interface EtaDeltaPoint {
+  label: string;
+  eta: number;
+  /** What the model's σ bonding states ask. */
+  sigmaFilling: number;
+  /** What each metal gives (Fermi-level alignment), by metal name. */
+  dopings: Record<string, number>;
+}
+
+/** A fact seen in experiment, drawn beside the model (never model output). */
+export interface EtaDeltaObserved {
+  /** Metal name and its display title. */
+  metal: string;
+  title: string;
+  holeDensities: number[];
+  /** Electrons per B atom from the metal, when reported. */
+  doping?: number;
+  /** Short label drawn at the mark, e.g. "Al(111): ≈1 e/B (Li et al. 2018)". */
+  label: string;
+  source: string;
+}
+
+/** What the η–δ figure draws: the counting-rule curve, candidates against each metal, and observations. */
+export interface EtaDeltaData {
+  /** The counting rule δ(η) = 8/(3(1 − η)) − 3, sampled. */
+  curve: { eta: number; doping: number }[];
+  points: EtaDeltaPoint[];
+  metals: EtaDeltaMetal[];
+  observed: EtaDeltaObserved[];
+  /** The model named in the caption: parameter set, mesh, Gaussian width, alignment fields. */
+  parameters: string;
+  mesh: number;
+  smearing: number;
+  model: { sheetWorkFunction: number; dipole: number; distance: number; d0: number };
+  /** The sheet on the page, marked by its η. */
+  current?: { label: string; eta: number };
+}

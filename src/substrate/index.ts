@@ -5,6 +5,7 @@ export * from './sheetSymmetry.ts';
 export * from './coincidence.ts';
 export * from './defaults.ts';
 export * from './alignment.ts';
+export * from './alignmentLimits.ts';
 export * from './transfer.ts';
 export * from './observed.ts';
 export * from './dopingMap.ts';

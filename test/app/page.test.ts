@@ -217,6 +217,61 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     expect(errors).toEqual([]);
   });
 
+  it('the Metal panel: a metal gives its doping beside the two the sheet wants; "use this doping" moves E_F; the η–δ map is drawn; a bad field is named and the rest kept', async () => {
+    const { page, errors } = await openPage('#sheet=chi3');
+    await page.waitForSelector('#metal-dopings tr[data-row="gives"]');
+    await page.selectOption('#metal-select', 'al111');
+    await page.waitForFunction(() => document.querySelector('#metal-dopings tr[data-row="gives"]')?.textContent?.includes('Al(111)'));
+    const rows = await page.locator('#metal-dopings tr').allInnerTexts();
+    expect(rows[0]).toMatch(/counting rule asks\s+\+0\.333 e\/atom/); // δ(1/5) = 1/3 (common practice: the χ3 count)
+    expect(rows[1]).toMatch(/σ filling asks\s+[+−]\d\.\d{3} e\/atom/);
+    expect(rows[2]).toMatch(/alignment with Al\(111\) gives\s+[+−]\d\.\d{4} e\/atom/);
+    expect(page.url()).toContain('metal=al111');
+    // The preset's own value and source shown (regression guard, not an outside check).
+    expect(await page.locator('#metal-source').innerText()).toMatch(/W_M = 4\.24 eV \(CRC Handbook of Chemistry and Physics, from memory\)/);
+    expect(await page.locator('#metal-caveat').innerText()).toMatch(/not predictions.*weak coupling.*Al\(111\).*Li et al/s);
+
+    // The map: the named sheets against the four metals, observations marked.
+    await page.waitForSelector('svg[data-figure="eta-delta"] [data-observed="al111"]', { state: 'attached', timeout: 30_000 });
+    expect(await page.locator('svg[data-figure="eta-delta"] path[data-metal]').count()).toBe(5 * 4);
+
+    // "use this doping": the view's δ becomes the alignment's, E_F moves, no diagonalisation.
+    const before = await jobsPosted(page);
+    const fermiBefore = await fermiOf(page);
+    const given = await page.evaluate(() => (window as unknown as { lacuna: { metal: { transfer: { alignment: { electronsPerAtom: number } } } } }).lacuna.metal.transfer.alignment.electronsPerAtom);
+    await page.click('#use-doping');
+    await page.waitForFunction((old) => document.querySelector('svg[data-figure="bands"] [data-fermi]')?.getAttribute('data-fermi') !== old, fermiBefore);
+    expect(Number(await page.locator('#doping').inputValue())).toBeCloseTo(given, 4);
+    expect(await jobsPosted(page)).toEqual(before);
+
+    // A bad field: named in a notice, outlined, its text kept; a good field beside it is used.
+    await page.fill('#metal-form input[name="dipole"]', '0.5');
+    await page.fill('#metal-form input[name="sheetWorkFunction"]', 'lots');
+    await page.locator('#metal-form input[name="sheetWorkFunction"]').dispatchEvent('change');
+    await page.waitForSelector('.notice');
+    expect(await page.locator('.notice').last().innerText()).toMatch(/invalid sheet work function W_S: "lots" \(not a number\)/);
+    expect(await page.locator('#metal-form input[name="sheetWorkFunction"]').inputValue()).toBe('lots');
+    expect(await page.locator('#metal-form input[name="sheetWorkFunction"]').getAttribute('class')).toContain('invalid');
+    await page.waitForFunction(() => location.hash.includes('dipole=0.5'));
+    await page.locator('.metal-panel').scrollIntoViewIfNeeded();
+    await shot(page, 'metal-panel');
+    await page.locator('.metal-panel').screenshot({ path: `${OUTPUT}/metal-panel-only.png` });
+    expect(errors).toEqual([]);
+  });
+
+  it('exports the η–δ map as SVG', async () => {
+    const { page, errors } = await openPage('#sheet=beta12');
+    await page.waitForSelector('svg[data-figure="eta-delta"]', { state: 'attached', timeout: 30_000 });
+    await page.selectOption('#export-figure', 'eta-delta');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('[data-export="svg"]')]);
+    const path = `${OUTPUT}/${download.suggestedFilename()}`;
+    await download.saveAs(path);
+    const svg = readFileSync(path, 'utf8');
+    expect(svg).toMatch(/<svg[^>]*data-figure="eta-delta"/);
+    expect(svg).toContain('data-style="publication"');
+    expect(errors).toEqual([]);
+  });
+
   it('computes a 48×48 DOS in the worker (benchmark figure)', async () => {
     const { page } = await openPage('#sheet=beta12&mesh=48');
     const seconds = await page.evaluate(() => (window as unknown as { lacuna: { app: { timings: { lastSpectraMs: number } } } }).lacuna.app.timings.lastSpectraMs / 1000);

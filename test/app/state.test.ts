@@ -20,7 +20,10 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     state.doping = 0.25;
     state.pick = { kIndex: 12, band: 3 };
     state.search = { sites: [2, 9], holes: [1, 2], isolated: false, eta: [0.1, 0.2], cell: { a: 5.1, b: 2.95, gamma: 90, lengthTolerance: 0.2, angleTolerance: 2 } };
-    const { state: back, errors } = readHash(writeHash(state), defaultState());
+    state.metal = { name: 'al111', model: { sheetWorkFunction: 4.5, dipole: -0.25, distance: 2.1, d0: 1.5 } };
+    const hash = writeHash(state);
+    expect(hash).toContain('metal=al111&sheet-work-function=4.5&dipole=-0.25&distance=2.1&d0=1.5');
+    const { state: back, errors } = readHash(hash, defaultState());
     expect(errors).toEqual([]);
     expect(back).toEqual(state);
   });
@@ -31,7 +34,7 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     expect(state.doping).toBe(0);
     expect(state.mesh).toBeUndefined();
     expect(errors.map((e) => e.message)).toEqual([
-      'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance)',
+      'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance, metal, sheet-work-function, dipole, distance, d0)',
       'invalid URL doping: "abc" (not a number)',
       'invalid URL mesh: "0" (must be from 1 to 400)',
       'invalid URL sites: "9-3" (the range is empty (low end above high end))',
@@ -43,5 +46,30 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     const { errors } = readHash(hash, defaultState());
     expect(errors).toHaveLength(1);
     expect(errors[0].message).toMatch(/^invalid supercell/);
+  });
+
+  it('keeps the metal at Ag(111) with the estimated model when the hash says nothing of it (so #sheet=NAME stays short)', () => {
+    const { state } = readHash('#sheet=chi3', defaultState());
+    expect(state.metal).toEqual({ name: 'ag111', model: {} });
+    expect(writeHash(state)).toBe('#sheet=chi3');
+  });
+
+  it('refuses an unknown metal and out-of-range model fields by key, keeping the others', () => {
+    const { state, errors } = readHash('#sheet=alpha&metal=pt111&sheet-work-function=48&dipole=0.5&distance=x', defaultState());
+    expect(state.metal).toEqual({ name: 'ag111', model: { dipole: 0.5 } });
+    expect(errors.map((e) => e.message)).toEqual([
+      'invalid URL metal: "pt111" (unknown substrate; substrates: al111, ag111, cu111, au111)',
+      'invalid URL sheet-work-function: "48" (must lie in [1, 8])',
+      'invalid URL distance: "x" (not a number)',
+    ]);
+  });
+
+  it('refuses d < d0 naming the field given and keeps the other (d − d0 is a thickness; Giovannetti et al., PRL 101, 026803 (2008))', () => {
+    const { state, errors } = readHash('#sheet=alpha&distance=2&d0=2.5', defaultState());
+    expect(errors.map((e) => e.field)).toEqual(['URL distance']);
+    expect(state.metal.model).toEqual({ d0: 2.5 });
+    const alone = readHash('#sheet=alpha&d0=3.5', defaultState());
+    expect(alone.errors.map((e) => e.field)).toEqual(['URL d0']);
+    expect(alone.state.metal.model).toEqual({});
   });
 });

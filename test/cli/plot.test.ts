@@ -59,6 +59,18 @@ describe('lacuna plot', () => {
     expect(sameIds(String(files.get('s.svg')))).toBe(sameIds(svgText(sheetFigure(sheet, { document: headlessDocument(), style: 'publication' }))));
   });
 
+  it('draws the η–δ map of the named sheets with the sheet marked (eta-delta), taking the alignment flags', async () => {
+    const { code, stdout, files } = await cli(['plot', 'chi3', '--figure', 'eta-delta', '--mesh', '8', '--dipole', '0.5', '--svg', 'm.svg', '--json']);
+    expect(code).toBe(0);
+    expect(JSON.parse(stdout)).toMatchObject({ svg: 'm.svg', figure: 'eta-delta', fermi: null, sheet: 'chi3' });
+    const svg = new DOMParserLike(String(files.get('m.svg'))).root;
+    expect(svg.getAttribute('data-figure')).toBe('eta-delta');
+    // χ3 has η = 1/5 (Feng et al., Nat. Chem. 8, 563 (2016)).
+    expect(Number(svg.querySelector('[data-layer="current"]')!.getAttribute('data-eta'))).toBeCloseTo(0.2, 12);
+    expect(svg.querySelector('desc')!.textContent).toContain('Δc = 0.5 eV');
+    expect(svg.querySelectorAll('path[data-metal]').length).toBe(5 * 4);
+  });
+
   it('never replaces a file without --overwrite, and refuses missing or misplaced flags in the error form', async () => {
     const refused = async (argv: string[], pattern: RegExp, files: Record<string, string> = {}) => {
       const result = await cli(argv, files);
@@ -73,6 +85,9 @@ describe('lacuna plot', () => {
     await refused(['plot', 'alpha', '--figure', 'graph', '--svg', 'x.svg'], /^invalid --figure: "graph"/);
     await refused(['plot', 'alpha', '--figure', 'sheet', '--mesh', '4', '--svg', 'x.svg'], /^invalid --mesh: 4 \(not used by the sheet figure\)/);
     await refused(['plot', 'alpha', '--figure', 'bands', '--repeats', '2', '--svg', 'x.svg'], /^invalid --repeats: 2 \(only for --figure sheet\)/);
+    await refused(['plot', 'alpha', '--figure', 'dos', '--dipole', '0.2', '--svg', 'x.svg'], /^invalid --dipole: 0.2 \(only for --figure eta-delta\)/);
+    await refused(['plot', 'alpha', '--figure', 'eta-delta', '--doping', '0.2', '--svg', 'x.svg'], /^invalid --doping: 0.2 \(not used by the eta-delta figure\)/);
+    await refused(['plot', 'alpha', '--figure', 'eta-delta', '--distance', '2', '--svg', 'x.svg'], /^invalid --distance: 2 \(the distance d = 2 Å must be at least d0/);
     const replaced = await cli(['plot', 'alpha', '--figure', 'sheet', '--svg', 'x.svg', '--overwrite'], { 'x.svg': 'old' });
     expect(replaced.code).toBe(0);
     expect(String(replaced.files.get('x.svg'))).toMatch(/^<\?xml/);

@@ -3,11 +3,14 @@ import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { expect } from 'vitest';
-import { prepareSheet, prepareSpectra } from '../../src/figures/prepare.ts';
+import { prepareEtaDelta, prepareSheet, prepareSpectra } from '../../src/figures/prepare.ts';
 import { headlessDocument } from '../../src/figures/headless.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
 import { findParameterPreset, type ParameterSet } from '../../src/tb/params.ts';
-import type { SheetData, SpectraData } from '../../src/figures/types.ts';
+import type { EtaDeltaData, SheetData, SpectraData } from '../../src/figures/types.ts';
+import { SHEET_PRESETS } from '../../src/lattice/presets.ts';
+import { dopingMap } from '../../src/substrate/dopingMap.ts';
+import { SUBSTRATES } from '../../src/substrate/substrates.ts';
 
 export const GOLDEN = join(dirname(fileURLToPath(import.meta.url)), 'golden');
 export const PARAMS = findParameterPreset('harrison1980') as ParameterSet;
@@ -38,4 +41,10 @@ export function matchesGolden(name: string, actual: string): void {
   const expected = readFileSync(file, 'utf8');
   if (actual !== expected) writeFileSync(join(GOLDEN, `${name}.actual.svg`), actual);
   expect(actual === expected, `${name}.svg differs from the drawing; see ${name}.actual.svg beside it`).toBe(true);
+}
+
+/** The η–δ data of the named sheets on the four metals, on a small mesh (fast tests), with alpha as the page's sheet. */
+export function presetEtaDelta(): EtaDeltaData {
+  const map = dopingMap(SHEET_PRESETS.map((p) => ({ name: p.name, pattern: p.pattern })), { substrates: SUBSTRATES, parameters: PARAMS, mesh: 12 });
+  return prepareEtaDelta(map, { label: 'alpha', eta: 1 / 9 });
 }

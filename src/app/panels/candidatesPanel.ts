@@ -85,6 +85,11 @@ export class CandidatesPanel {
     }
   }
 
+  /** The candidates listed now (empty before the first search). */
+  get listed(): readonly Candidate[] {
+    return this.list?.candidates ?? [];
+  }
+
   fillForm(search: SearchState): void {
     const form = $<HTMLFormElement>(this.doc, '#search-form');
     const set = (name: string, value: string) => ((form.elements.namedItem(name) as HTMLInputElement).value = value);

@@ -6,6 +6,7 @@
  */
 import { bandsFigure } from '../../figures/bands.ts';
 import { dosFigure } from '../../figures/dos.ts';
+import { etaDeltaFigure } from '../../figures/etaDelta.ts';
 import { setRule } from '../../figures/energyPlot.ts';
 import { sheetFigure } from '../../figures/sheet.ts';
 import { zoneFigure } from '../../figures/zone.ts';
@@ -19,6 +20,7 @@ import { sheetToXyz } from '../../io/xyz.ts';
 import type { App } from '../app.ts';
 import { download, svgText, svgToPng } from '../download.ts';
 import { libraryToJson, mergeLibraries, parseLibrary } from '../library.ts';
+import type { MetalPanel } from './metalPanel.ts';
 import { SpectrumView } from './spectrumView.ts';
 
 const $ = <T extends Element>(doc: Document, selector: string) => doc.querySelector<T>(selector)!;
@@ -29,10 +31,11 @@ function stem(label: string): string {
 }
 
 /** The figure in the publication style, from the data on screen. */
-export function publicationFigure(app: App, doc: Document, figure: string): SVGSVGElement | undefined {
+export function publicationFigure(app: App, doc: Document, figure: string, metal?: MetalPanel): SVGSVGElement | undefined {
   const spectra = app.spectra;
   const options = { document: doc, style: 'publication' as const };
   if (figure === 'sheet') return sheetFigure(app.sheetData(), options);
+  if (figure === 'eta-delta') return metal?.etaDelta.map ? etaDeltaFigure(metal.etaDelta.map, options) : undefined;
   if (!spectra) return undefined;
   const energyRange = SpectrumView.energyRange(spectra, app.energyWindow.low, app.energyWindow.high);
   const rule = app.ruleEnergy() ?? null;
@@ -49,14 +52,14 @@ export function publicationFigure(app: App, doc: Document, figure: string): SVGS
   return zoneFigure(spectra, options);
 }
 
-export function wireExports(app: App, doc: Document): void {
+export function wireExports(app: App, doc: Document, metal?: MetalPanel): void {
   const figureSelect = $<HTMLSelectElement>(doc, '#export-figure');
   const save = async (kind: string) => {
     const label = stem(app.resolved.label);
     const spectra = app.spectra;
     if (kind === 'svg' || kind === 'png') {
-      const svg = publicationFigure(app, doc, figureSelect.value);
-      if (!svg) return app.notices.show('the bands are still being computed; try again in a moment', 'info');
+      const svg = publicationFigure(app, doc, figureSelect.value, metal);
+      if (!svg) return app.notices.show(`the ${figureSelect.value === 'eta-delta' ? 'η–δ map is' : 'bands are'} still being computed; try again in a moment`, 'info');
       const name = `${label}-${figureSelect.value}`;
       if (kind === 'svg') download(doc, `${name}.svg`, new Blob([svgText(svg)], { type: 'image/svg+xml' }));
       else download(doc, `${name}.png`, await svgToPng(svg));

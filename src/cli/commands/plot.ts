@@ -1,14 +1,20 @@
 /**
- * `lacuna plot`: one figure of a sheet — the sheet, its bands, its DOS or its Brillouin zone — drawn in the
- * publication look by the same figure code as the web view (src/figures), written as SVG and/or PNG.
+ * `lacuna plot`: one figure of a sheet — the sheet, its bands, its DOS or its Brillouin zone, or the η–δ map of the
+ * named sheets on the four metals with this sheet marked — drawn in the publication look by the same figure code
+ * as the web view (src/figures), written as SVG and/or PNG.
  */
 import { invalid } from '../../io/invalid.ts';
 import { bandsFigure } from '../../figures/bands.ts';
 import { dosFigure } from '../../figures/dos.ts';
-import { prepareSheet, prepareSpectra } from '../../figures/prepare.ts';
+import { etaDeltaFigure } from '../../figures/etaDelta.ts';
+import { prepareEtaDelta, prepareSheet, prepareSpectra } from '../../figures/prepare.ts';
 import { svgText } from '../../figures/serialize.ts';
 import { sheetFigure } from '../../figures/sheet.ts';
 import { zoneFigure } from '../../figures/zone.ts';
+import { estimateHoleDensity } from '../../lattice/geometry.ts';
+import { SHEET_PRESETS } from '../../lattice/presets.ts';
+import { dopingMap } from '../../substrate/dopingMap.ts';
+import { SUBSTRATES } from '../../substrate/substrates.ts';
 import type { SpectraData } from '../../figures/types.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { DOPING_FLAG, JSON_FLAG, MESH_FLAG, MODEL_CAVEAT, OVERWRITE_FLAG, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG } from '../commonFlags.ts';
@@ -17,8 +23,11 @@ import { buildModel, meshChoiceOf, meshWork, resolveParameters } from '../parame
 import { ProgressLine } from '../progress.ts';
 import { rasterise } from '../raster.ts';
 import { resolveSheet } from '../sheetArgument.ts';
+import { ALIGNMENT_FLAGS, SUBSTRATE_CAVEAT, alignmentOf } from '../substrateFlags.ts';
 
-export const FIGURES = ['sheet', 'bands', 'dos', 'zone'] as const;
+export const FIGURES = ['sheet', 'bands', 'dos', 'zone', 'eta-delta'] as const;
+/** Mesh of each spectrum of the η–δ map (the `metals` command's default). */
+const MAP_MESH = 24;
 export type FigureName = (typeof FIGURES)[number];
 
 /** Pixels per SVG unit in the PNG (2: sharp on paper and on high-density screens). */
@@ -26,7 +35,7 @@ export const PNG_SCALE = 2;
 
 const spec: CommandSpec = {
   name: 'plot',
-  summary: 'draw one figure of a sheet (sheet, bands, dos or zone) in the publication look, as SVG and/or PNG',
+  summary: 'draw one figure of a sheet (sheet, bands, dos, zone, or eta-delta: the η–δ map with the sheet marked) in the publication look, as SVG and/or PNG',
   positionals: [SHEET_ARGUMENT],
   flags: {
     figure: { kind: 'choice', values: FIGURES, placeholder: FIGURES.join('|'), help: 'which figure (required)' },
@@ -38,6 +47,7 @@ const spec: CommandSpec = {
     smearing: SMEARING_FLAG,
     points: { kind: 'integer', min: 10, max: 5000, placeholder: 'P', help: 'points on the automatic k-path (default 300)' },
     repeats: { kind: 'integer', min: 1, max: 20, placeholder: 'n', help: 'copies of the cell along each cell vector in the sheet figure (default 3)' },
+    ...ALIGNMENT_FLAGS,
     overwrite: OVERWRITE_FLAG,
     json: JSON_FLAG,
   },
@@ -60,6 +70,15 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   } else if (flags.repeats !== undefined) {
     invalid('--repeats', flags.repeats, 'only for --figure sheet');
   }
+  if (figure === 'eta-delta') {
+    for (const flag of ['doping', 'points'] as const) {
+      if (flags[flag] !== undefined) invalid(`--${flag}`, flags[flag], 'not used by the eta-delta figure');
+    }
+  } else {
+    for (const flag of Object.keys(ALIGNMENT_FLAGS)) {
+      if (flags[flag] !== undefined) invalid(`--${flag}`, flags[flag], 'only for --figure eta-delta');
+    }
+  }
 
   const source = resolveSheet(positionals.SHEET, io);
   const params = resolveParameters(flags.params as string | undefined, io);
@@ -73,6 +92,15 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   let svg: SVGSVGElement;
   if (figure === 'sheet') {
     svg = sheetFigure(sheetData, options);
+  } else if (figure === 'eta-delta') {
+    const model = alignmentOf(flags);
+    const progress = new ProgressLine(io.err, 'patterns');
+    const map = dopingMap(SHEET_PRESETS.map((p) => ({ name: p.name, pattern: p.pattern })), {
+      substrates: SUBSTRATES, parameters: params, mesh: (flags.mesh as number | undefined) ?? MAP_MESH, smearing: flags.smearing as number | undefined, ...model,
+      onProgress: (done, total) => progress.update(done, done / total),
+    });
+    progress.done();
+    svg = etaDeltaFigure(prepareEtaDelta(map, { label: source.label, eta: estimateHoleDensity(sheetData.sheet).eta }), options);
   } else {
     // The smallest cell of a pattern (what the sheet figure's states refer to), after the work guard.
     buildModel({ label: source.label, sheet: sheetData.sheet }, params, io, meshWork(flags)(sheetData.sheet));
@@ -101,6 +129,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     io.out(`${source.label}: ${figure} figure, parameters ${params.name}, δ = ${spectra.doping} e/atom, E_F ${spectra.fermi.toFixed(4)} eV (${spectra.mesh}×${spectra.mesh} mesh, Gaussian width ${spectra.smearing} eV)\n`);
     io.out(`${MODEL_CAVEAT}\n`);
   }
+  if (figure === 'eta-delta') io.out(`${SUBSTRATE_CAVEAT}\n`);
   return 0;
 }
 
