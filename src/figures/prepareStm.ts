@@ -1,0 +1,83 @@
+/**
+ * The data of the STM picture figure (src/figures/stmPicture.ts) from the core's pictures: pure and
+ * structured-cloneable, so the web view's STM worker prepares it and posts it to the page.
+ */
+import { toGrey8 } from '../io/png.ts';
+import type { Vec2 } from '../lattice/sheet.ts';
+import type { Picture } from '../stm/stmImage.ts';
+import type { StmPictureData } from './types.ts';
+
+/** Most lattice points marked; beyond that only the outlined cell is drawn (the points would hide the picture). */
+export const MAX_MARKED_POINTS = 1500;
+
+/** A lattice point near the picture's centre: `origin` moved by whole cell vectors. */
+export function centredOrigin(origin: Vec2, vectors: [Vec2, Vec2], centre: Vec2): Vec2 {
+  const [a, b] = vectors;
+  const det = a[0] * b[1] - a[1] * b[0];
+  const dx = centre[0] - origin[0], dy = centre[1] - origin[1];
+  // Whole cells toward the centre, so that the outlined cell ends near the middle of the picture.
+  const n1 = Math.floor((dx * b[1] - dy * b[0]) / det - 0.5), n2 = Math.floor((a[0] * dy - a[1] * dx) / det - 0.5);
+  return [origin[0] + n1 * a[0] + n2 * b[0], origin[1] + n1 * a[1] + n2 * b[1]];
+}
+
+/** The lattice points inside a w × h rectangle (Å), at most `limit` (undefined beyond). */
+export function latticePoints(origin: Vec2, vectors: [Vec2, Vec2], w: number, h: number, limit = MAX_MARKED_POINTS): Vec2[] | undefined {
+  const [a, b] = vectors;
+  const det = a[0] * b[1] - a[1] * b[0];
+  let lo1 = Infinity, hi1 = -Infinity, lo2 = Infinity, hi2 = -Infinity;
+  for (const [x, y] of [[0, 0], [w, 0], [0, h], [w, h]]) {
+    const n1 = ((x - origin[0]) * b[1] - (y - origin[1]) * b[0]) / det, n2 = (a[0] * (y - origin[1]) - a[1] * (x - origin[0])) / det;
+    lo1 = Math.min(lo1, n1); hi1 = Math.max(hi1, n1); lo2 = Math.min(lo2, n2); hi2 = Math.max(hi2, n2);
+  }
+  if ((hi1 - lo1 + 1) * (hi2 - lo2 + 1) > 8 * limit) return undefined;
+  const out: Vec2[] = [];
+  for (let n1 = Math.floor(lo1); n1 <= Math.ceil(hi1); n1++) {
+    for (let n2 = Math.floor(lo2); n2 <= Math.ceil(hi2); n2++) {
+      const x = origin[0] + n1 * a[0] + n2 * b[0], y = origin[1] + n1 * a[1] + n2 * b[1];
+      if (x >= 0 && x <= w && y >= 0 && y <= h) out.push([x, y]);
+      if (out.length > limit) return undefined;
+    }
+  }
+  return out;
+}
+
+/**
+ * A simulated picture of `renderStm` (src/stm/stmImage.ts): x along the first cell vector, a lattice site at the
+ * bottom-left corner; the cell (Å, the sheet's frame) is turned into the picture's frame and outlined near the centre.
+ */
+export function prepareSimulatedPicture(picture: Picture, cell: [Vec2, Vec2], text: { label: string; lines: string[] }): StmPictureData {
+  const angle = Math.atan2(cell[0][1], cell[0][0]);
+  const c = Math.cos(-angle), s = Math.sin(-angle);
+  const turn = ([x, y]: Vec2): Vec2 => [c * x - s * y, s * x + c * y];
+  const vectors: [Vec2, Vec2] = [turn(cell[0]), turn(cell[1])];
+  const w = picture.width * picture.pixelSize, h = picture.height * picture.pixelSize;
+  return {
+    kind: 'simulated', label: text.label, lines: text.lines,
+    width: picture.width, height: picture.height, pixelSize: picture.pixelSize, grey: toGrey8(picture.values),
+    cell: { origin: centredOrigin([0, 0], vectors, [w / 2, h / 2]), vectors },
+  };
+}
+
+/**
+ * A measured picture with its fitted lattice: `values` the picture as shown (background removed), `vectors` the
+ * fitted cell (Å) and `origin` one lattice point (Å), both in the picture's frame.
+ */
+export function prepareMeasuredPicture(
+  picture: Picture,
+  lattice: { vectors: [Vec2, Vec2]; origin: Vec2 } | undefined,
+  text: { label: string; lines: string[]; demo?: string },
+): StmPictureData {
+  const w = picture.width * picture.pixelSize, h = picture.height * picture.pixelSize;
+  const out: StmPictureData = {
+    kind: 'measured', label: text.label, lines: text.lines,
+    width: picture.width, height: picture.height, pixelSize: picture.pixelSize, grey: toGrey8(picture.values),
+  };
+  if (text.demo) out.demo = text.demo;
+  if (lattice) {
+    const origin = centredOrigin(lattice.origin, lattice.vectors, [w / 2, h / 2]);
+    out.cell = { origin, vectors: lattice.vectors };
+    const points = latticePoints(origin, lattice.vectors, w, h);
+    if (points) out.points = points;
+  }
+  return out;
+}
