@@ -63,7 +63,7 @@ export function simulate(input: SimulateInput): SimulateOutput {
   const brightness = input.mode === 'constant-height' ? 'brighter: more current at this height' : 'brighter: the tip higher at equal current';
   const figure = prepareSimulatedPicture(picture, model.sheet.cell, {
     label: input.label,
-    lines: [`${tipLine(input)}; ${brightness}`, `Tersoff–Hamann on tight binding (${input.params.name}), E_F ${stm.fermi.toFixed(3)} eV: a model, not a prediction`],
+    lines: [`${tipLine(input)}; ${brightness}`, `Tersoff–Hamann on tight binding (${input.params.name}), E_F ${stm.fermi < 0 ? '−' : ''}${Math.abs(stm.fermi).toFixed(3)} eV: a model, not a prediction`],
   });
   return { figure, fermi: stm.fermi, states: stm.states };
 }
@@ -154,7 +154,7 @@ export function rankCandidates(input: MatchInput, progress?: (examined: number) 
     candidates: result.candidates.map((c) => {
       const p = c.structure.pattern;
       return {
-        name: c.structure.phase ?? `N${c.structure.sites}-k${c.structure.holes}`,
+        name: c.structure.phase ?? `N${c.structure.sites}k${c.structure.holes}`, // as the Candidates panel names them
         sites: c.structure.sites, holes: c.structure.holes, eta: c.structure.eta, score: c.score, index: c.index,
         pattern: { bond: p.bond, supercell: hnfRows(p.supercell), vacancies: p.vacancies.map(([i, j]) => [i, j] as [number, number]) },
       };

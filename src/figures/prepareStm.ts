@@ -3,6 +3,7 @@
  * structured-cloneable, so the web view's STM worker prepares it and posts it to the page.
  */
 import { toGrey8 } from '../io/png.ts';
+import { gaussReduce } from '../lattice/reduce.ts';
 import type { Vec2 } from '../lattice/sheet.ts';
 import type { Picture } from '../stm/stmImage.ts';
 import type { StmPictureData } from './types.ts';
@@ -15,8 +16,8 @@ export function centredOrigin(origin: Vec2, vectors: [Vec2, Vec2], centre: Vec2)
   const [a, b] = vectors;
   const det = a[0] * b[1] - a[1] * b[0];
   const dx = centre[0] - origin[0], dy = centre[1] - origin[1];
-  // Whole cells toward the centre, so that the outlined cell ends near the middle of the picture.
-  const n1 = Math.floor((dx * b[1] - dy * b[0]) / det - 0.5), n2 = Math.floor((a[0] * dy - a[1] * dx) / det - 0.5);
+  // Whole cells toward the centre: the cell from the returned point has its middle nearest the picture's centre.
+  const n1 = Math.round((dx * b[1] - dy * b[0]) / det - 0.5), n2 = Math.round((a[0] * dy - a[1] * dx) / det - 0.5);
   return [origin[0] + n1 * a[0] + n2 * b[0], origin[1] + n1 * a[1] + n2 * b[1]];
 }
 
@@ -43,13 +44,15 @@ export function latticePoints(origin: Vec2, vectors: [Vec2, Vec2], w: number, h:
 
 /**
  * A simulated picture of `renderStm` (src/stm/stmImage.ts): x along the first cell vector, a lattice site at the
- * bottom-left corner; the cell (Å, the sheet's frame) is turned into the picture's frame and outlined near the centre.
+ * bottom-left corner; the cell (Å, the sheet's frame) is turned into the picture's frame, reduced to its shortest
+ * vectors (a sheared cell hides the lattice it stands for) and outlined near the centre.
  */
 export function prepareSimulatedPicture(picture: Picture, cell: [Vec2, Vec2], text: { label: string; lines: string[] }): StmPictureData {
   const angle = Math.atan2(cell[0][1], cell[0][0]);
   const c = Math.cos(-angle), s = Math.sin(-angle);
   const turn = ([x, y]: Vec2): Vec2 => [c * x - s * y, s * x + c * y];
-  const vectors: [Vec2, Vec2] = [turn(cell[0]), turn(cell[1])];
+  const reduced = gaussReduce(turn(cell[0]), turn(cell[1]));
+  const vectors: [Vec2, Vec2] = [reduced.u, reduced.v];
   const w = picture.width * picture.pixelSize, h = picture.height * picture.pixelSize;
   return {
     kind: 'simulated', label: text.label, lines: text.lines,

@@ -23,17 +23,36 @@ export function pngDataUrl(bytes: Uint8Array): string {
   return `data:image/png;base64,${out.join('')}`;
 }
 
+/** Words of `text` in lines of at most `width` characters (a word longer than that gets a line of its own). */
+export function wrapWords(text: string, width: number): string[] {
+  const out: string[] = [];
+  let line = '';
+  for (const word of text.split(' ')) {
+    if (line !== '' && line.length + 1 + word.length > width) {
+      out.push(line);
+      line = word;
+    } else {
+      line = line === '' ? word : `${line} ${word}`;
+    }
+  }
+  if (line !== '') out.push(line);
+  return out;
+}
+
 export function stmPictureFigure(data: StmPictureData, options: FigureOptions): SVGSVGElement {
   const kind = data.kind === 'simulated' ? 'stm' : 'stm-measured';
-  const lines = data.demo ? [data.demo, ...data.lines] : data.lines;
-  const lineHeight = options.style === 'publication' ? 18 : 14;
   const side = options.style === 'publication' ? 440 : 300;
+  // About 0.55 em per character of the tick font: lines wrapped to the picture's width.
+  const chars = Math.floor(side / (0.56 * (options.style === 'publication' ? 12 : 10)));
+  const demo = data.demo ? wrapWords(data.demo, chars) : [];
+  const lines = [...demo, ...data.lines.flatMap((line) => wrapWords(line, chars))];
+  const lineHeight = options.style === 'publication' ? 17 : 13;
   const frame = figureFrame(kind, options, {
     screen: [side + 8, side + 28 + lineHeight * lines.length],
     publication: [side + 40, side + 48 + lineHeight * lines.length],
   }, {
-    title: `${data.label}: ${data.kind === 'simulated' ? 'simulated STM picture (model)' : 'measured STM picture'}`,
-    description: `${data.width}×${data.height} pixels of ${data.pixelSize.toPrecision(4)} Å; ${lines.join(' ')}`,
+    title: `${data.label}: ${data.kind === 'simulated' ? 'simulated STM picture (model)' : data.demo ? 'DEMO picture to match (synthetic)' : 'measured STM picture'}`,
+    description: `${data.width}×${data.height} pixels of ${data.pixelSize.toPrecision(4)} Å; ${[data.demo, ...data.lines].filter((line) => line !== undefined).join('; ')}`,
   });
   const lk = frame.look;
   const left = lk.publication ? 20 : 4, top = lk.caption + 12;
@@ -53,8 +72,8 @@ export function stmPictureFigure(data: StmPictureData, options: FigureOptions): 
   const over = frame.svg.append('g').attr('data-layer', 'lattice').attr('clip-path', `url(#${clip})`);
   if (data.points) {
     over.selectAll('circle').data(data.points).join('circle').attr('data-role', 'lattice-point')
-      .attr('cx', (p) => X(p[0])).attr('cy', (p) => Y(p[1])).attr('r', 2.2)
-      .attr('fill', PI_COLOUR).attr('stroke', INK).attr('stroke-width', 0.5);
+      .attr('cx', (p) => X(p[0])).attr('cy', (p) => Y(p[1])).attr('r', 1.8)
+      .attr('fill', PI_COLOUR).attr('stroke', INK).attr('stroke-width', 0.4);
   }
   if (data.cell) {
     const { origin: o, vectors: [a, b] } = data.cell;
@@ -78,7 +97,7 @@ export function stmPictureFigure(data: StmPictureData, options: FigureOptions): 
   const text = frame.svg.append('g').attr('data-role', 'lines');
   lines.forEach((line, i) => {
     text.append('text').attr('x', left).attr('y', top + h + 6 + lineHeight * (i + 1) - 4).attr('font-size', lk.tick)
-      .attr('fill', data.demo && i === 0 ? FERMI_COLOUR : INK).text(line);
+      .attr('fill', i < demo.length ? FERMI_COLOUR : INK).text(line);
   });
   return frame.svg.node()!;
 }

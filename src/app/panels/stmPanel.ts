@@ -269,15 +269,15 @@ export class StmPanel {
       ? `No pattern with a fitting cell among ${ranked.examined} examined: widen the sites, or check the pixel size.${unscored}`
       : `${name}: ${ranked.fitting} of ${ranked.examined} isolated-hole patterns fit the lattice; the best ${ranked.candidates.length} by score at ${tipLine(s)}.${unscored} Click a row to load it into the sheet and see its model picture beside the measured one.`;
     const body = $<HTMLTableSectionElement>(this.doc, '#stm-candidates tbody');
-    body.replaceChildren(...ranked.candidates.map((c) => this.row(c)));
+    body.replaceChildren(...ranked.candidates.map((c, i) => this.row(c, i + 1)));
   }
 
-  private row(candidate: RankedCandidate): HTMLTableRowElement {
+  private row(candidate: RankedCandidate, rank: number): HTMLTableRowElement {
     const row = this.doc.createElement('tr');
     const key = JSON.stringify(candidate.pattern);
     row.dataset.name = candidate.name;
     row.setAttribute('aria-selected', String(key === this.selectedKey));
-    const cells = [candidate.name, String(candidate.sites), String(candidate.holes), candidate.eta.toFixed(4), candidate.score.toFixed(3)];
+    const cells = [String(rank), candidate.name, String(candidate.sites), String(candidate.holes), candidate.eta.toFixed(4), candidate.score.toFixed(3)];
     for (const text of cells) row.insertCell().textContent = text;
     row.title = `supercell ${JSON.stringify(candidate.pattern.supercell)}, holes ${candidate.pattern.vacancies.map(([i, j]) => `(${i},${j})`).join(' ')}${candidate.index > 1 ? `; its cell is ${candidate.index}× the fitted one` : ''}`;
     row.addEventListener('click', () => {
