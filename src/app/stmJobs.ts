@@ -3,7 +3,7 @@
  * the simulated picture of a sheet, a measured picture read and analysed, the DEMO synthetic picture, and the
  * ranking of candidate patterns against a measured picture.
  */
-import { prepareMeasuredPicture, prepareSimulatedPicture } from '../figures/prepareStm.ts';
+import { prepareMeasuredPicture, prepareStmSimulation, type TipSettings } from '../figures/prepareStm.ts';
 import type { StmPictureData } from '../figures/types.ts';
 import { readPicture, type DecodedPicture } from '../io/imageFile.ts';
 import { invalid } from '../io/invalid.ts';
@@ -14,18 +14,13 @@ import { analysePicture, type Analysis } from '../stm/analyse.ts';
 import type { Background } from '../stm/background.ts';
 import { matchPatterns } from '../stm/match.ts';
 import { latticeOrigin } from '../stm/overlay.ts';
-import { stmModel, STM_DEFAULTS, type StmMode } from '../stm/simulate.ts';
-import { renderStm } from '../stm/stmImage.ts';
+import { stmModel, STM_DEFAULTS } from '../stm/simulate.ts';
 import { DEMO_LABEL, syntheticPicture } from '../stm/synthetic.ts';
 import { TightBindingModel } from '../tb/model.ts';
 import type { ParameterSet } from '../tb/params.ts';
 
-/** The tip: sample bias V (V > 0 images empty states), height above the highest atom (Å), mode. */
-export interface TipSettings {
-  bias: number;
-  height: number;
-  mode: StmMode;
-}
+export type { TipSettings } from '../figures/prepareStm.ts';
+export { tipLine } from '../figures/prepareStm.ts';
 
 export interface SimulateInput extends TipSettings {
   label: string;
@@ -44,28 +39,9 @@ export interface SimulateOutput {
   states: number;
 }
 
-export const MODE_WORDS: Record<StmMode, string> = { 'constant-current': 'constant current', 'constant-height': 'constant height' };
-
-/** The tip's settings as one line of text (shared by the pictures and the table). */
-export function tipLine(tip: TipSettings): string {
-  const sign = tip.bias > 0 ? '+' : '−';
-  return `V = ${sign}${Math.abs(tip.bias)} V (${tip.bias > 0 ? 'empty' : 'filled'} states), tip ${tip.height} Å, ${MODE_WORDS[tip.mode]}`;
-}
-
 export function simulate(input: SimulateInput): SimulateOutput {
-  const model = new TightBindingModel(input.sheet, input.params);
-  const stm = stmModel(model, { bias: input.bias, height: input.height, mode: input.mode, doping: input.doping, smearing: input.smearing, mesh: STM_DEFAULTS.mesh });
-  if (!(stm.states > 1e-6)) {
-    const gap = stm.gap ? `: E_F = ${stm.fermi.toFixed(3)} eV lies in a gap of the model from ${stm.gap.lower.toFixed(3)} to ${stm.gap.upper.toFixed(3)} eV, so |V| must exceed ${Math.min(stm.fermi - stm.gap.lower, stm.gap.upper - stm.fermi).toFixed(2)} V` : '';
-    invalid('bias V', String(input.bias), `no states of ${input.label} lie in the window E_F … E_F + eV${gap}`);
-  }
-  const picture = renderStm(stm, model.sheet.cell, { cells: input.cells, pixels: input.pixels });
-  const brightness = input.mode === 'constant-height' ? 'brighter: more current at this height' : 'brighter: the tip higher at equal current';
-  const figure = prepareSimulatedPicture(picture, model.sheet.cell, {
-    label: input.label,
-    lines: [`${tipLine(input)}; ${brightness}`, `Tersoff–Hamann on tight binding (${input.params.name}), E_F ${stm.fermi < 0 ? '−' : ''}${Math.abs(stm.fermi).toFixed(3)} eV: a model, not a prediction`],
-  });
-  return { figure, fermi: stm.fermi, states: stm.states };
+  const { sheet, params, ...options } = input;
+  return prepareStmSimulation(sheet, params, { ...options, biasField: 'bias V' });
 }
 
 /** A measured picture analysed, as the page keeps it (the analysis goes back to the worker for each match). */

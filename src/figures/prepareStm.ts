@@ -2,10 +2,14 @@
  * The data of the STM picture figure (src/figures/stmPicture.ts) from the core's pictures: pure and
  * structured-cloneable, so the web view's STM worker prepares it and posts it to the page.
  */
+import { invalid } from '../io/invalid.ts';
 import { toGrey8 } from '../io/png.ts';
 import { gaussReduce } from '../lattice/reduce.ts';
-import type { Vec2 } from '../lattice/sheet.ts';
-import type { Picture } from '../stm/stmImage.ts';
+import type { Sheet, Vec2 } from '../lattice/sheet.ts';
+import { STM_DEFAULTS, stmModel, type StmMode } from '../stm/simulate.ts';
+import { renderStm, type Picture } from '../stm/stmImage.ts';
+import { TightBindingModel } from '../tb/model.ts';
+import type { ParameterSet } from '../tb/params.ts';
 import type { StmPictureData } from './types.ts';
 
 /** Most lattice points marked; beyond that only the outlined cell is drawn (the points would hide the picture). */
@@ -83,4 +87,50 @@ export function prepareMeasuredPicture(
     if (points) out.points = points;
   }
   return out;
+}
+
+/** The tip: sample bias V (V > 0 images empty states), height above the highest atom (Å), mode. */
+export interface TipSettings {
+  bias: number;
+  height: number;
+  mode: StmMode;
+}
+
+export interface StmSimulationOptions extends TipSettings {
+  label: string;
+  doping?: number;
+  smearing?: number;
+  /** Mesh of E_F and the LDOS (default STM_DEFAULTS.mesh). */
+  mesh?: number;
+  cells: number;
+  pixels: number;
+  /** The bias field's name in errors (`--bias`, `bias V`). */
+  biasField: string;
+}
+
+const MODE_WORDS: Record<StmMode, string> = { 'constant-current': 'constant current', 'constant-height': 'constant height' };
+
+/** The tip's settings as one line of text (the pictures and the STM panel's table). */
+export function tipLine(tip: TipSettings): string {
+  return `V = ${tip.bias > 0 ? '+' : '−'}${Math.abs(tip.bias)} V (${tip.bias > 0 ? 'empty' : 'filled'} states), tip ${tip.height} Å, ${MODE_WORDS[tip.mode]}`;
+}
+
+/**
+ * A sheet's simulated picture, ready to draw; refuses a bias whose window holds no state (E_F in a gap of the model
+ * wider than |V|), naming the bias field.
+ */
+export function prepareStmSimulation(sheet: Sheet, params: ParameterSet, o: StmSimulationOptions): { figure: StmPictureData; fermi: number; states: number } {
+  const model = new TightBindingModel(sheet, params);
+  const stm = stmModel(model, { bias: o.bias, height: o.height, mode: o.mode, doping: o.doping, smearing: o.smearing, mesh: o.mesh ?? STM_DEFAULTS.mesh });
+  if (!(stm.states > 1e-6)) {
+    const gap = stm.gap ? `: E_F = ${stm.fermi.toFixed(3)} eV lies in a gap of the model from ${stm.gap.lower.toFixed(3)} to ${stm.gap.upper.toFixed(3)} eV, so |V| must exceed ${Math.min(stm.fermi - stm.gap.lower, stm.gap.upper - stm.fermi).toFixed(2)} V` : '';
+    invalid(o.biasField, String(o.bias), `no states of ${o.label} lie in the window E_F … E_F + eV${gap}`);
+  }
+  const picture = renderStm(stm, model.sheet.cell, { cells: o.cells, pixels: o.pixels });
+  const brightness = o.mode === 'constant-height' ? 'brighter: more current at this height' : 'brighter: the tip higher at equal current';
+  const figure = prepareSimulatedPicture(picture, model.sheet.cell, {
+    label: o.label,
+    lines: [`${tipLine(o)}; ${brightness}`, `Tersoff–Hamann on tight binding (${params.name}), E_F ${stm.fermi < 0 ? '−' : ''}${Math.abs(stm.fermi).toFixed(3)} eV: a model, not a prediction`],
+  });
+  return { figure, fermi: stm.fermi, states: stm.states };
 }
