@@ -6,7 +6,7 @@ export { dosFigure, type DosOptions } from './dos.ts';
 export { zoneFigure, setZoneMarker, type ZoneOptions } from './zone.ts';
 export { sheetFigure, type SheetOptions } from './sheet.ts';
 export { setFermi, setRule } from './energyPlot.ts';
-export { stmPictureFigure, pngDataUrl } from './stmPicture.ts';
+export { stmPictureFigure, wrapWords } from './stmPicture.ts';
 export * from './prepareStm.ts';
 export { etaDeltaFigure, metalMarker, setMetalFocus, type EtaDeltaOptions } from './etaDelta.ts';
 export { svgText, serializeFigure } from './serialize.ts';

@@ -3,7 +3,7 @@
  * structured-cloneable, so the web view's STM worker prepares it and posts it to the page.
  */
 import { invalid } from '../io/invalid.ts';
-import { toGrey8 } from '../io/png.ts';
+import { encodeGreyPng, toGrey8 } from '../io/png.ts';
 import { gaussReduce } from '../lattice/reduce.ts';
 import type { Sheet, Vec2 } from '../lattice/sheet.ts';
 import { STM_DEFAULTS, stmModel, type StmMode } from '../stm/simulate.ts';
@@ -11,6 +11,22 @@ import { renderStm, type Picture } from '../stm/stmImage.ts';
 import { TightBindingModel } from '../tb/model.ts';
 import type { ParameterSet } from '../tb/params.ts';
 import type { StmPictureData } from './types.ts';
+
+/** A PNG as a data URL (base64 by hand: the same in the page, its workers and Node). */
+export function pngDataUrl(bytes: Uint8Array): string {
+  const alphabet = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/';
+  const out: string[] = [];
+  for (let i = 0; i < bytes.length; i += 3) {
+    const n = (bytes[i] << 16) | ((bytes[i + 1] ?? 0) << 8) | (bytes[i + 2] ?? 0);
+    out.push(alphabet[(n >> 18) & 63] + alphabet[(n >> 12) & 63] + (i + 1 < bytes.length ? alphabet[(n >> 6) & 63] : '=') + (i + 2 < bytes.length ? alphabet[n & 63] : '='));
+  }
+  return `data:image/png;base64,${out.join('')}`;
+}
+
+/** The picture's grey PNG as a data URL (minimum black, maximum white). */
+function pictureUrl(picture: Picture): string {
+  return pngDataUrl(encodeGreyPng(picture.width, picture.height, toGrey8(picture.values)));
+}
 
 /** Most lattice points marked; beyond that only the outlined cell is drawn (the points would hide the picture). */
 export const MAX_MARKED_POINTS = 1500;
@@ -60,7 +76,7 @@ export function prepareSimulatedPicture(picture: Picture, cell: [Vec2, Vec2], te
   const w = picture.width * picture.pixelSize, h = picture.height * picture.pixelSize;
   return {
     kind: 'simulated', label: text.label, lines: text.lines,
-    width: picture.width, height: picture.height, pixelSize: picture.pixelSize, grey: toGrey8(picture.values),
+    width: picture.width, height: picture.height, pixelSize: picture.pixelSize, png: pictureUrl(picture),
     cell: { origin: centredOrigin([0, 0], vectors, [w / 2, h / 2]), vectors },
   };
 }
@@ -77,7 +93,7 @@ export function prepareMeasuredPicture(
   const w = picture.width * picture.pixelSize, h = picture.height * picture.pixelSize;
   const out: StmPictureData = {
     kind: 'measured', label: text.label, lines: text.lines,
-    width: picture.width, height: picture.height, pixelSize: picture.pixelSize, grey: toGrey8(picture.values),
+    width: picture.width, height: picture.height, pixelSize: picture.pixelSize, png: pictureUrl(picture),
   };
   if (text.demo) out.demo = text.demo;
   if (lattice) {

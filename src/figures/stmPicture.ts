@@ -1,9 +1,8 @@
 /**
  * The STM picture figure: a greyscale picture (simulated: `data-figure="stm"`; measured: `data-figure="stm-measured"`)
- * as an embedded PNG, one cell outlined, lattice points marked (measured pictures: the fitted lattice), a scale bar in
+ * as an embedded PNG (a data URL made with the data, in the page's worker: no pixel work on the page's thread), one cell outlined, lattice points marked (measured pictures: the fitted lattice), a scale bar in
  * Å, and the lines that say what the picture is (the model, the bias, the fitted cell) under it.
  */
-import { encodeGreyPng } from '../io/png.ts';
 import type { Vec2 } from '../lattice/sheet.ts';
 import { drawCaption, figureFrame } from './frame.ts';
 import { FERMI_COLOUR, INK, MUTED, PI_COLOUR } from './palette.ts';
@@ -11,17 +10,6 @@ import type { FigureOptions, StmPictureData } from './types.ts';
 
 /** Scale-bar lengths tried (Å), the longest that fits in a third of the picture's width is drawn. */
 const BAR_LENGTHS = [0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500];
-
-/** A PNG as a data URL (base64 by hand: the same in the page, its workers and Node). */
-export function pngDataUrl(bytes: Uint8Array): string {
-  const alphabet = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/';
-  const out: string[] = [];
-  for (let i = 0; i < bytes.length; i += 3) {
-    const n = (bytes[i] << 16) | ((bytes[i + 1] ?? 0) << 8) | (bytes[i + 2] ?? 0);
-    out.push(alphabet[(n >> 18) & 63], alphabet[(n >> 12) & 63], i + 1 < bytes.length ? alphabet[(n >> 6) & 63] : '=', i + 2 < bytes.length ? alphabet[n & 63] : '=');
-  }
-  return `data:image/png;base64,${out.join('')}`;
-}
 
 /** Words of `text` in lines of at most `width` characters (a word longer than that gets a line of its own). */
 export function wrapWords(text: string, width: number): string[] {
@@ -41,6 +29,8 @@ export function wrapWords(text: string, width: number): string[] {
 
 export function stmPictureFigure(data: StmPictureData, options: FigureOptions): SVGSVGElement {
   const kind = data.kind === 'simulated' ? 'stm' : 'stm-measured';
+  // The title is one line over the picture: a long sheet or file name is cut (the description keeps it whole).
+  const shortLabel = data.label.length > 26 ? `${data.label.slice(0, 25)}…` : data.label;
   const side = options.style === 'publication' ? 440 : 300;
   // About 0.55 em per character of the tick font: lines wrapped to the picture's width.
   const chars = Math.floor(side / (0.56 * (options.style === 'publication' ? 12 : 10)));
@@ -51,8 +41,8 @@ export function stmPictureFigure(data: StmPictureData, options: FigureOptions): 
     screen: [side + 8, side + 28 + lineHeight * lines.length],
     publication: [side + 40, side + 48 + lineHeight * lines.length],
   }, {
-    title: `${data.label}: ${data.kind === 'simulated' ? 'simulated STM picture (model)' : data.demo ? 'DEMO picture to match (synthetic)' : 'measured STM picture'}`,
-    description: `${data.width}×${data.height} pixels of ${data.pixelSize.toPrecision(4)} Å; ${[data.demo, ...data.lines].filter((line) => line !== undefined).join('; ')}`,
+    title: data.demo ? 'DEMO: synthetic picture to match' : `${shortLabel}: ${data.kind === 'simulated' ? 'simulated STM picture (model)' : 'measured STM picture'}`,
+    description: `${data.label}: ${data.width}×${data.height} pixels of ${data.pixelSize.toPrecision(4)} Å; ${[data.demo, ...data.lines].filter((line) => line !== undefined).join('; ')}`,
   });
   const lk = frame.look;
   const left = lk.publication ? 20 : 4, top = lk.caption + 12;
@@ -68,7 +58,7 @@ export function stmPictureFigure(data: StmPictureData, options: FigureOptions): 
   frame.svg.append('defs').append('clipPath').attr('id', clip).append('rect').attr('x', left).attr('y', top).attr('width', w).attr('height', h);
   frame.svg.append('image').attr('data-layer', 'picture').attr('x', left).attr('y', top).attr('width', w).attr('height', h)
     .attr('preserveAspectRatio', 'none').attr('image-rendering', 'optimizeSpeed') // pixels as measured, not smoothed (a style attribute would break the page's CSP)
-    .attr('href', pngDataUrl(encodeGreyPng(data.width, data.height, data.grey)));
+    .attr('href', data.png);
   const over = frame.svg.append('g').attr('data-layer', 'lattice').attr('clip-path', `url(#${clip})`);
   if (data.points) {
     over.selectAll('circle').data(data.points).join('circle').attr('data-role', 'lattice-point')

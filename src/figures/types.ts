@@ -164,7 +164,7 @@ export interface EtaDeltaData {
 }
 
 /**
- * An STM picture, simulated or measured, ready to draw: 8-bit grey pixels (row 0 at the top) and what to draw over
+ * An STM picture, simulated or measured, ready to draw: its 8-bit grey PNG (row 0 at the top) and what to draw over
  * them, in Å in the picture's frame (x to the right, y up, from the bottom-left corner of the picture).
  */
 export interface StmPictureData {
@@ -177,7 +177,8 @@ export interface StmPictureData {
   height: number;
   /** Å per pixel. */
   pixelSize: number;
-  grey: Uint8Array;
+  /** The 8-bit grey PNG of the picture as a data URL, made where the picture is computed (the page's worker). */
+  png: string;
   /** One cell outlined: a lattice point and the two cell vectors (Å). */
   cell?: { origin: Vec2; vectors: [Vec2, Vec2] };
   /** Lattice points marked over the picture (Å). */

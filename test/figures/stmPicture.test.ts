@@ -4,9 +4,10 @@
  */
 import { decode } from 'fast-png';
 import { describe, expect, it } from 'vitest';
-import { centredOrigin, latticePoints, prepareMeasuredPicture, prepareSimulatedPicture } from '../../src/figures/prepareStm.ts';
+import { centredOrigin, latticePoints, pngDataUrl, prepareMeasuredPicture, prepareSimulatedPicture } from '../../src/figures/prepareStm.ts';
 import { serializeFigure } from '../../src/figures/serialize.ts';
-import { pngDataUrl, stmPictureFigure, wrapWords } from '../../src/figures/stmPicture.ts';
+import { stmPictureFigure, wrapWords } from '../../src/figures/stmPicture.ts';
+import { toGrey8 } from '../../src/io/png.ts';
 import type { FigureStyle } from '../../src/figures/types.ts';
 import { patternToSheet } from '../../src/lattice/pattern.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
@@ -38,7 +39,7 @@ describe('stmPictureFigure(data, options)', () => {
     expect(href.startsWith('data:image/png;base64,')).toBe(true);
     const png = decode(Buffer.from(href.slice('data:image/png;base64,'.length), 'base64'));
     expect([png.width, png.height, png.channels]).toEqual([32, 32, 1]);
-    expect(Array.from(png.data)).toEqual(Array.from(simulated.grey));
+    expect(Array.from(png.data)).toEqual(Array.from(toGrey8(picture.values)));
   });
 
   it('pngDataUrl agrees with Node\'s base64 for every length remainder (Buffer as the outside encoder)', () => {
