@@ -306,6 +306,12 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     await page.waitForFunction((old) => document.querySelector('svg[data-figure="bands"] [data-fermi]')?.getAttribute('data-fermi') !== old, fermiBefore);
     expect(await page.locator('#summary').innerText()).toContain('beta12');
     await page.waitForFunction(() => document.querySelector('svg[data-figure="stm"] title')?.textContent?.startsWith('beta12'), undefined, { timeout: 30_000 });
+    // "as wide as the measured picture" (ticked by default): 256 × 0.2 = 51.2 Å over the longest vector of β12's cell as the
+    // sheet holds it, |(5.07, 2.93)| = 5.86 Å, is nine cells (our arithmetic); the two scale bars then agree.
+    await page.waitForFunction(() => document.querySelector('#stm-tip-form input[name="cells"]')?.getAttribute('disabled') !== null);
+    expect(await page.locator('#stm-tip-form input[name="cells"]').inputValue()).toBe('9');
+    await page.waitForFunction(() => document.querySelector('svg[data-figure="stm"] [data-role="scale-bar"]')?.getAttribute('data-length')
+      === document.querySelector('svg[data-figure="stm-measured"] [data-role="scale-bar"]')?.getAttribute('data-length'), undefined, { timeout: 30_000 });
 
     // A text file that is no picture: an error naming the file and the reason; the DEMO picture and the table stay.
     await page.fill('#stm-picture-form input[name="pixelSize"]', '0.2');

@@ -10,7 +10,7 @@ import { ValidationError } from '../../io/invalid.ts';
 import type { App } from '../app.ts';
 import { parameterSet, type StmState } from '../state.ts';
 import {
-  readBackground, readBias, readCells, readHeight, readMode, readPixels, readPixelSize, readSites, readTop,
+  PICTURE_LIMITS, readBackground, readBias, readCells, readHeight, readMode, readPixels, readPixelSize, readSites, readTop,
 } from '../stmFields.ts';
 import { tipLine, type MatchOutput, type MeasuredOutput, type RankedCandidate, type SimulateOutput } from '../stmJobs.ts';
 import { Cancelled, WorkerLane } from '../worker/client.ts';
@@ -41,7 +41,7 @@ export class StmPanel {
     this.matchLane = new WorkerLane(createWorker, 'match');
     const tip = $<HTMLFormElement>(doc, '#stm-tip-form');
     for (const name of ['bias', 'height', 'mode']) this.field(tip, name).addEventListener('change', () => this.readTip());
-    for (const name of ['cells', 'pixels']) this.field(tip, name).addEventListener('change', () => this.refresh(true));
+    for (const name of ['cells', 'pixels', 'sameWidth']) this.field(tip, name).addEventListener('change', () => this.refresh(true));
     const picture = $<HTMLFormElement>(doc, '#stm-picture-form');
     $<HTMLInputElement>(doc, '#stm-file').addEventListener('change', (event) => void this.openFile(event.target as HTMLInputElement));
     for (const name of ['pixelSize', 'background']) this.field(picture, name).addEventListener('change', () => void this.analysePending());
@@ -126,7 +126,7 @@ export class StmPanel {
   private async simulate(): Promise<void> {
     const form = $<HTMLFormElement>(this.doc, '#stm-tip-form');
     const errors: string[] = [];
-    const cells = this.read(this.field(form, 'cells'), readCells, errors);
+    const cells = this.sameWidthCells() ?? this.read(this.field(form, 'cells'), readCells, errors);
     const pixels = this.read(this.field(form, 'pixels'), readPixels, errors);
     if (cells === undefined || pixels === undefined) return this.showErrors(errors, 'the picture is not redrawn until it is corrected');
     const r = this.app.resolved;
@@ -151,6 +151,24 @@ export class StmPanel {
     } finally {
       this.busy(undefined);
     }
+  }
+
+  /**
+   * Cells per side that make the model picture about as wide as the measured one (renderStm's side is
+   * cells · max(|A1|, |A2|)), when that box is ticked and a measured picture is open; shown in the cells field.
+   */
+  private sameWidthCells(): number | undefined {
+    const form = $<HTMLFormElement>(this.doc, '#stm-tip-form');
+    const box = this.field(form, 'sameWidth');
+    const measured = this.measured;
+    this.field(form, 'cells').disabled = box.checked && measured !== undefined;
+    if (!box.checked || !measured) return undefined;
+    const [a, b] = this.app.resolved.sheet.cell;
+    const longest = Math.max(Math.hypot(a[0], a[1]), Math.hypot(b[0], b[1]));
+    const cells = Math.min(PICTURE_LIMITS.cells[1], Math.max(PICTURE_LIMITS.cells[0], Math.round((measured.analysis.width * measured.analysis.pixelSize) / longest)));
+    this.field(form, 'cells').value = String(cells);
+    this.field(form, 'cells').classList.remove('invalid');
+    return cells;
   }
 
   private draw(selector: string, data: StmPictureData): void {
@@ -215,6 +233,7 @@ export class StmPanel {
     }
     $<HTMLElement>(this.doc, '#stm-error').textContent = '';
     this.draw('#stm-measured-host', this.measured.figure);
+    if (this.field($<HTMLFormElement>(this.doc, '#stm-tip-form'), 'sameWidth').checked) this.refresh(true);
     this.ranked = undefined;
     $<HTMLTableSectionElement>(this.doc, '#stm-candidates tbody').replaceChildren();
     await this.match();
