@@ -1,7 +1,8 @@
 /**
  * The page's entry: the starting view (the URL hash if there is one, else the embedded demo scenario), the
  * controller, the panels, and the page-wide keys. Everything it shows is computed by the core (src/), in two
- * workers: the model worker (bands, DOS, filling, states) and the search worker (enumeration, ranking).
+ * workers: the model worker (bands, DOS, filling, states), the search worker (enumeration, ranking), the substrate
+ * worker (the Metal panel) and the STM worker (the STM panel).
  */
 import demo from '../../presets/demo/harbour-lab.json' with { type: 'json' };
 import { App } from './app.ts';
@@ -10,6 +11,7 @@ import { wireControls, readNumber } from './panels/controls.ts';
 import { CandidatesPanel } from './panels/candidatesPanel.ts';
 import { wireExports } from './panels/exportsPanel.ts';
 import { MetalPanel } from './panels/metalPanel.ts';
+import { StmPanel } from './panels/stmPanel.ts';
 import { defaultState, readHash, type ViewState } from './state.ts';
 import { ValidationError } from '../io/invalid.ts';
 
@@ -58,7 +60,8 @@ const app = new App(
 wireControls(app, document);
 const candidates = new CandidatesPanel(app, document, () => new Worker(new URL('./worker/searchWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-search' }));
 const metal = new MetalPanel(app, document, () => new Worker(new URL('./worker/substrateWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-substrate' }), () => candidates.listed);
-wireExports(app, document, metal);
+const stm = new StmPanel(app, document, () => new Worker(new URL('./worker/stmWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-stm' }));
+wireExports(app, document, metal, stm);
 
 if (opensDemo) {
   const note = $<HTMLElement>('#demo-note');
@@ -113,7 +116,7 @@ window.addEventListener('hashchange', () => {
 });
 
 // For the browser test and the benchmark it prints: the controller and its timings.
-(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal };
+(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal, stm };
 
 void app.start().then(() => {
   if (opensDemo) void candidates.search();

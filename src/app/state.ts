@@ -6,7 +6,9 @@
  * `smearing`, `mesh` (the CLI's defaults and mesh rule when absent), `repeats`, `pick` (k index, band of the selected state),
  * `label`, the candidate search: `sites`, `holes`, `eta`, `isolated`, `cell` (a,b,γ), `tolerance` (Å,°), and the
  * Metal panel: `metal` (a substrate preset name), `sheet-work-function`, `dipole` (eV), `distance`, `d0` (Å) —
- * the alignment model's fields, absent when at their estimated defaults (the CLI's flag names).
+ * the alignment model's fields, absent when at their estimated defaults (the CLI's flag names) — and the STM
+ * panel: `bias` (V, sample against tip), `tip-height` (Å), `tip-mode` (`current` | `height`), `match-sites` (N1-N2),
+ * `match-top` (K). The measured picture is never put in the hash: it stays in the page that opened it.
  * Every field is validated like any input: a bad one is reported as `invalid URL <key>: <value> (<why>)` and
  * falls back to its default, the others are kept.
  */
@@ -20,6 +22,8 @@ import { ALIGNMENT_FLAG_LIMITS, type AlignmentField } from '../substrate/alignme
 import { requireSubstrate } from '../substrate/substrates.ts';
 import { alignmentParameters, type AlignmentParameters } from '../substrate/transfer.ts';
 import { DEFAULT_SMEARING } from '../tb/fill.ts';
+import { MIN_BIAS } from '../stm/biasWindow.ts';
+import { STM_DEFAULTS, type StmMode } from '../stm/simulate.ts';
 import { DEFAULT_PARAMETERS, findParameterPreset, PARAMETER_PRESETS, type ParameterSet } from '../tb/params.ts';
 
 /** Which sheet is shown: a named preset, a vacancy pattern (edited, picked, imported), or an explicit sheet. */
@@ -52,6 +56,19 @@ export interface MetalState {
   model: AlignmentParameters;
 }
 
+/** The STM panel: the tip of every simulated picture, and the match settings. */
+export interface StmState {
+  /** Sample bias V against the tip (volts; V > 0 images empty states; MIN_BIAS ≤ |V| ≤ 10). */
+  bias: number;
+  /** Tip height above the highest atom (Å). */
+  height: number;
+  mode: StmMode;
+  /** Lattice sites per cell of the candidates matched. */
+  sites: [number, number];
+  /** Candidates listed. */
+  top: number;
+}
+
 export interface ViewState {
   sheet: SheetChoice;
   params: ParamsChoice;
@@ -67,6 +84,7 @@ export interface ViewState {
   pick?: { kIndex: number; band: number };
   search: SearchState;
   metal: MetalState;
+  stm: StmState;
 }
 
 /** Bounds of the view's own fields (the CLI's, where the CLI has one). */
@@ -76,7 +94,21 @@ export const LIMITS = {
   mesh: [1, 400] as const,
   repeats: [1, 8] as const,
   sites: [1, 24] as const,
+  /** |V| (V): the CLI's --bias. */
+  bias: [MIN_BIAS, 10] as const,
+  /** Tip height (Å): the CLI's --height. */
+  height: [1.5, 15] as const,
+  /** Sites of the matched candidates: the CLI's `match --sites`. */
+  matchSites: [1, 16] as const,
+  top: [1, 100] as const,
 };
+
+/** The tip modes in the hash. */
+export const TIP_MODES: Record<string, StmMode> = { current: 'constant-current', height: 'constant-height' };
+
+export function defaultStm(): StmState {
+  return { bias: STM_DEFAULTS.bias, height: STM_DEFAULTS.height, mode: STM_DEFAULTS.mode, sites: [1, 12], top: 8 };
+}
 
 /** Ag(111): the metal most boron sheets have been grown on. */
 export const DEFAULT_METAL = 'ag111';
@@ -99,6 +131,7 @@ export function defaultState(): ViewState {
     repeats: 3,
     search: defaultSearch(),
     metal: { name: DEFAULT_METAL, model: {} },
+    stm: defaultStm(),
   };
 }
 
@@ -171,7 +204,7 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
   const state: ViewState = structuredClone(base);
   const errors: ValidationError[] = [];
   const params = new URLSearchParams(hash.replace(/^#/, ''));
-  const known = new Set(['sheet', 'params', 'doping', 'smearing', 'mesh', 'repeats', 'pick', 'label', 'sites', 'holes', 'eta', 'isolated', 'cell', 'tolerance', 'metal', ...Object.values(ALIGNMENT_KEYS)]);
+  const known = new Set(['sheet', 'params', 'doping', 'smearing', 'mesh', 'repeats', 'pick', 'label', 'sites', 'holes', 'eta', 'isolated', 'cell', 'tolerance', 'metal', ...Object.values(ALIGNMENT_KEYS), ...STM_KEYS]);
   const attempt = (action: () => void) => {
     try {
       action();
@@ -241,6 +274,7 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
     const [low, high] = ALIGNMENT_FLAG_LIMITS[field];
     if (text !== undefined) attempt(() => { state.metal.model[field] = numberField(key, text, low, high, false, false); });
   }
+  readStmKeys(get, state.stm, attempt);
   // d ≥ d0 across the two fields: the one given is dropped (the other kept).
   attempt(() => {
     try {
@@ -251,6 +285,42 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
     }
   });
   return { state, errors };
+}
+
+/** The STM panel's keys, in the order they are written. */
+const STM_KEYS = ['bias', 'tip-height', 'tip-mode', 'match-sites', 'match-top'];
+
+function readStmKeys(get: (key: string) => string | undefined, stm: StmState, attempt: (action: () => void) => void): void {
+  const bias = get('bias');
+  if (bias !== undefined) {
+    attempt(() => {
+      const v = numberField('bias', bias, -LIMITS.bias[1], LIMITS.bias[1], false, false);
+      if (!(Math.abs(v) >= LIMITS.bias[0])) invalid('URL bias', bias, `|V| must be at least ${LIMITS.bias[0]} V: the window E_F … E_F + eV is empty at zero bias`);
+      stm.bias = v;
+    });
+  }
+  const height = get('tip-height');
+  if (height !== undefined) attempt(() => { stm.height = numberField('tip-height', height, LIMITS.height[0], LIMITS.height[1], false, false); });
+  const mode = get('tip-mode');
+  if (mode !== undefined) {
+    attempt(() => {
+      if (!Object.hasOwn(TIP_MODES, mode)) invalid('URL tip-mode', mode, `must be ${Object.keys(TIP_MODES).join(' or ')}`);
+      stm.mode = TIP_MODES[mode];
+    });
+  }
+  const sites = get('match-sites');
+  if (sites !== undefined) attempt(() => { stm.sites = rangeField('match-sites', sites, (p) => integerField('match-sites', p, LIMITS.matchSites[0], LIMITS.matchSites[1])); });
+  const top = get('match-top');
+  if (top !== undefined) attempt(() => { stm.top = integerField('match-top', top, LIMITS.top[0], LIMITS.top[1]); });
+}
+
+function writeStmKeys(out: URLSearchParams, stm: StmState): void {
+  const base = defaultStm();
+  if (stm.bias !== base.bias) out.set('bias', String(stm.bias));
+  if (stm.height !== base.height) out.set('tip-height', String(stm.height));
+  if (stm.mode !== base.mode) out.set('tip-mode', Object.keys(TIP_MODES).find((k) => TIP_MODES[k] === stm.mode)!);
+  if (stm.sites.join('-') !== base.sites.join('-')) out.set('match-sites', stm.sites.join('-'));
+  if (stm.top !== base.top) out.set('match-top', String(stm.top));
 }
 
 // --- writing -------------------------------------------------------------------------------------------------
@@ -294,6 +364,7 @@ export function writeHash(state: ViewState): string {
     const value = state.metal.model[field];
     if (value !== undefined) out.set(key, String(value));
   }
+  writeStmKeys(out, state.stm);
   // URLSearchParams writes spaces as '+'; keep the hash readable and exact with %20.
   return `#${out.toString().replace(/\+/g, '%20')}`;
 }

@@ -17,8 +17,8 @@ export const WORK_FUNCTION_FLAG: FlagSpec = {
 };
 export const STM_MESH_FLAG: FlagSpec = { kind: 'integer', min: 2, max: 200, placeholder: 'M', help: 'Γ-centred M×M k-mesh of E_F and of the LDOS (default 24)' };
 
-/** Smallest |bias| (V) accepted. */
-export const MIN_BIAS = 0.01;
+/** Smallest |bias| (V) accepted (src/stm/biasWindow.ts). */
+export { MIN_BIAS } from '../stm/biasWindow.ts';
 
 /** The caveat printed under every human-readable STM result. */
 export const STM_CAVEAT =

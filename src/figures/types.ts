@@ -162,3 +162,27 @@ export interface EtaDeltaData {
   /** The sheet on the page, marked by its η. */
   current?: { label: string; eta: number };
 }
+
+/**
+ * An STM picture, simulated or measured, ready to draw: its 8-bit grey PNG (row 0 at the top) and what to draw over
+ * them, in Å in the picture's frame (x to the right, y up, from the bottom-left corner of the picture).
+ */
+export interface StmPictureData {
+  kind: 'simulated' | 'measured';
+  /** What the picture is of: a sheet's label, or a file's name. */
+  label: string;
+  /** Lines of text under the picture (the model, the bias, the fitted lattice…). */
+  lines: string[];
+  width: number;
+  height: number;
+  /** Å per pixel. */
+  pixelSize: number;
+  /** The 8-bit grey PNG of the picture as a data URL, made where the picture is computed (the page's worker). */
+  png: string;
+  /** One cell outlined: a lattice point and the two cell vectors (Å). */
+  cell?: { origin: Vec2; vectors: [Vec2, Vec2] };
+  /** Lattice points marked over the picture (Å). */
+  points?: Vec2[];
+  /** A label in warning colour (DEMO pictures). */
+  demo?: string;
+}

@@ -23,3 +23,6 @@ export function windowWeight(window: BiasWindow, energy: number): number {
   const w = occupation((energy - fermi - bias) / smearing) - occupation((energy - fermi) / smearing);
   return bias > 0 ? w : -w;
 }
+
+/** Smallest |bias| (V) any front end accepts: at zero bias the window E_F … E_F + eV is empty. */
+export const MIN_BIAS = 0.01;

@@ -19,3 +19,4 @@ export * from './analyse.ts';
 export * from './correspondence.ts';
 export * from './match.ts';
 export * from './overlay.ts';
+export * from './synthetic.ts';

@@ -8,15 +8,22 @@ import { toGrey8 } from '../io/png.ts';
 import type { Analysis } from './analyse.ts';
 import { foldPicture } from './fold.ts';
 
-export function latticeOverlay(analysis: Extract<Analysis, { ok: true }>): Uint8Array {
+/** A lattice point of the fitted lattice (pixels, x right, y up from the bottom-left corner): the brightest motif bin. */
+export function latticeOrigin(analysis: Extract<Analysis, { ok: true }>): [number, number] {
   const { values, width, height, pixelSize, bins, lattice } = analysis;
-  const grey = toGrey8(values);
   const motif = foldPicture(values, width, height, lattice.reciprocalPixels, bins);
   let brightest = 0;
   for (let b = 1; b < motif.length; b++) if (motif[b] > motif[brightest]) brightest = b;
   const f1 = (Math.floor(brightest / bins) + 0.5) / bins, f2 = ((brightest % bins) + 0.5) / bins;
   const [a, b] = lattice.vectors.map(([x, y]) => [x / pixelSize, y / pixelSize]);
-  const ox = f1 * a[0] + f2 * b[0], oy = f1 * a[1] + f2 * b[1];
+  return [f1 * a[0] + f2 * b[0], f1 * a[1] + f2 * b[1]];
+}
+
+export function latticeOverlay(analysis: Extract<Analysis, { ok: true }>): Uint8Array {
+  const { values, width, height, pixelSize, lattice } = analysis;
+  const grey = toGrey8(values);
+  const [a, b] = lattice.vectors.map(([x, y]) => [x / pixelSize, y / pixelSize]);
+  const [ox, oy] = latticeOrigin(analysis);
   // Lattice indices covering the picture: solve the corners for (n1, n2) and take the bounding range.
   const det = a[0] * b[1] - a[1] * b[0];
   let lo1 = Infinity, hi1 = -Infinity, lo2 = Infinity, hi2 = -Infinity;

@@ -272,6 +272,72 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     expect(errors).toEqual([]);
   });
 
+  it('the STM panel: the model picture of the sheet; the DEMO picture matched with β12 first; a row loads its pattern; a bad file is named and the page kept', async () => {
+    const { page, errors } = await openPage('#sheet=alpha');
+    // The model picture of the current sheet: a PNG in the figure, the cell outlined, a scale bar in Å.
+    await page.waitForSelector('svg[data-figure="stm"] image[data-layer="picture"]', { state: 'attached', timeout: 30_000 });
+    expect(await page.locator('svg[data-figure="stm"] image').getAttribute('href')).toMatch(/^data:image\/png;base64,iVBORw0KGgo/);
+    expect(await page.locator('svg[data-figure="stm"] [data-role="cell"]').count()).toBe(1);
+    expect(await page.locator('svg[data-figure="stm"] [data-role="scale-bar"]').getAttribute('data-length')).toMatch(/^\d+(\.\d+)?$/);
+    expect(await page.locator('#stm-caveat').innerText()).toMatch(/not predictions.*tip, the substrate and the bias.*experiment/s);
+
+    // A bad bias is named and kept in its field; the URL keeps the last good one.
+    await page.fill('#stm-tip-form input[name="bias"]', '0');
+    await page.locator('#stm-tip-form input[name="bias"]').dispatchEvent('change');
+    await page.waitForSelector('.notice');
+    expect(await page.locator('.notice').last().innerText()).toMatch(/invalid bias V: "0" \(\|V\| must be at least 0\.01 V/);
+    expect(await page.locator('#stm-tip-form input[name="bias"]').inputValue()).toBe('0');
+    await page.fill('#stm-tip-form input[name="bias"]', '1.2');
+    await page.locator('#stm-tip-form input[name="bias"]').dispatchEvent('change');
+    await page.waitForFunction(() => location.hash.includes('bias=1.2'));
+
+    // The DEMO picture, matched: β12 at the top (the picture was made from β12's model, so it must come back first).
+    await page.click('#stm-demo');
+    await page.waitForSelector('svg[data-figure="stm-measured"]', { state: 'attached', timeout: 30_000 });
+    expect(await page.locator('svg[data-figure="stm-measured"] desc').textContent()).toContain('DEMO: synthetic picture, not a measurement');
+    expect(await page.locator('svg[data-figure="stm-measured"] desc').textContent()).toMatch(/a = \d\.\d{3} ± \d\.\d{3} Å, b = \d\.\d{3} ± \d\.\d{3} Å, γ = \d+\.\d ± \d+\.\d°/);
+    expect(await page.locator('svg[data-figure="stm-measured"] [data-role="lattice-point"]').count()).toBeGreaterThan(20);
+    await page.waitForSelector('#stm-candidates tbody tr', { timeout: 60_000 });
+    expect(await page.locator('#stm-candidates tbody tr').first().getAttribute('data-name')).toBe('beta12');
+
+    // A row loads its pattern into the sheet and bands; the model picture beside the measured one is redrawn for it.
+    const fermiBefore = await fermiOf(page);
+    await page.locator('#stm-candidates tbody tr').first().click();
+    await page.waitForFunction((old) => document.querySelector('svg[data-figure="bands"] [data-fermi]')?.getAttribute('data-fermi') !== old, fermiBefore);
+    expect(await page.locator('#summary').innerText()).toContain('beta12');
+    await page.waitForFunction(() => document.querySelector('svg[data-figure="stm"] title')?.textContent?.startsWith('beta12'), undefined, { timeout: 30_000 });
+    // "as wide as the measured picture" (ticked by default): 256 × 0.2 = 51.2 Å over the longest vector of β12's cell as the
+    // sheet holds it, |(5.07, 2.93)| = 5.86 Å, is nine cells (our arithmetic); the two scale bars then agree.
+    await page.waitForFunction(() => document.querySelector('#stm-tip-form input[name="cells"]')?.getAttribute('disabled') !== null);
+    expect(await page.locator('#stm-tip-form input[name="cells"]').inputValue()).toBe('9');
+    await page.waitForFunction(() => document.querySelector('svg[data-figure="stm"] [data-role="scale-bar"]')?.getAttribute('data-length')
+      === document.querySelector('svg[data-figure="stm-measured"] [data-role="scale-bar"]')?.getAttribute('data-length'), undefined, { timeout: 30_000 });
+
+    // A text file that is no picture: an error naming the file and the reason; the DEMO picture and the table stay.
+    await page.fill('#stm-picture-form input[name="pixelSize"]', '0.2');
+    await page.setInputFiles('#stm-file', { name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('scan of 12 March\nlooked fine\n') });
+    await page.waitForFunction(() => /notes\.txt/.test(document.querySelector('#stm-error')?.textContent ?? ''));
+    expect(await page.locator('#stm-error').innerText()).toMatch(/invalid notes\.txt:1: "scan" \(not a number/);
+    expect(await page.locator('.notice').last().innerText()).toMatch(/notes\.txt.*the picture shown \(demo-beta12-synthetic\) and its table are kept/);
+    expect(await page.locator('svg[data-figure="stm-measured"]').count()).toBe(1);
+    expect(await page.locator('#stm-candidates tbody tr').count()).toBeGreaterThan(0);
+
+    // The measured picture exports as SVG from "Save and share".
+    await page.selectOption('#export-figure', 'stm-measured');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('[data-export="svg"]')]);
+    const path = `${OUTPUT}/${download.suggestedFilename()}`;
+    await download.saveAs(path);
+    expect(readFileSync(path, 'utf8')).toMatch(/<svg[^>]*data-figure="stm-measured"[^>]*data-style="publication"/);
+    const [png] = await Promise.all([page.waitForEvent('download'), page.click('[data-export="png"]')]);
+    await png.saveAs(`${OUTPUT}/stm-measured-export.png`);
+
+    await page.locator('.stm-panel').scrollIntoViewIfNeeded();
+    await page.click('#guide-toggle');
+    await page.locator('.stm-panel').screenshot({ path: `${OUTPUT}/stm-panel.png` });
+    await shot(page, 'stm-page');
+    expect(errors).toEqual([]);
+  });
+
   it('computes a 48×48 DOS in the worker (benchmark figure)', async () => {
     const { page } = await openPage('#sheet=beta12&mesh=48');
     const seconds = await page.evaluate(() => (window as unknown as { lacuna: { app: { timings: { lastSpectraMs: number } } } }).lacuna.app.timings.lastSpectraMs / 1000);

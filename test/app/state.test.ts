@@ -34,7 +34,7 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     expect(state.doping).toBe(0);
     expect(state.mesh).toBeUndefined();
     expect(errors.map((e) => e.message)).toEqual([
-      'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance, metal, sheet-work-function, dipole, distance, d0)',
+      'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance, metal, sheet-work-function, dipole, distance, d0, bias, tip-height, tip-mode, match-sites, match-top)',
       'invalid URL doping: "abc" (not a number)',
       'invalid URL mesh: "0" (must be from 1 to 400)',
       'invalid URL sites: "9-3" (the range is empty (low end above high end))',
@@ -71,5 +71,28 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     const alone = readHash('#sheet=alpha&d0=3.5', defaultState());
     expect(alone.errors.map((e) => e.field)).toEqual(['URL d0']);
     expect(alone.state.metal.model).toEqual({});
+  });
+
+  it('round-trips the STM panel\'s tip and match settings, and leaves them out at their defaults', () => {
+    const state = defaultState();
+    state.sheet = { kind: 'preset', name: 'beta12' };
+    state.stm = { bias: -0.75, height: 5.5, mode: 'constant-height', sites: [4, 10], top: 20 };
+    const hash = writeHash(state);
+    expect(hash).toBe('#sheet=beta12&bias=-0.75&tip-height=5.5&tip-mode=height&match-sites=4-10&match-top=20');
+    const { state: back, errors } = readHash(hash, defaultState());
+    expect(errors).toEqual([]);
+    expect(back).toEqual(state);
+    expect(writeHash(readHash('#sheet=beta12', defaultState()).state)).toBe('#sheet=beta12');
+  });
+
+  it('refuses bad STM keys by name and keeps the others (zero bias: an empty window, as the CLI\'s --bias)', () => {
+    const { state, errors } = readHash('#sheet=alpha&bias=0&tip-height=0.5&tip-mode=sideways&match-sites=3-30&match-top=7', defaultState());
+    expect(state.stm).toEqual({ bias: 1, height: 4, mode: 'constant-current', sites: [1, 12], top: 7 });
+    expect(errors.map((e) => e.message)).toEqual([
+      'invalid URL bias: "0" (|V| must be at least 0.01 V: the window E_F … E_F + eV is empty at zero bias)',
+      'invalid URL tip-height: "0.5" (must lie in [1.5, 15])',
+      'invalid URL tip-mode: "sideways" (must be current or height)',
+      'invalid URL match-sites: "30" (must be from 1 to 16)',
+    ]);
   });
 });

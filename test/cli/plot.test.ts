@@ -71,6 +71,17 @@ describe('lacuna plot', () => {
     expect(svg.querySelectorAll('path[data-metal]').length).toBe(5 * 4);
   });
 
+  it('draws the simulated STM picture (stm) with the tip flags, the same picture the web view draws, and names the model', async () => {
+    const { code, stdout, files } = await cli(['plot', 'beta12', '--figure', 'stm', '--bias', '-0.5', '--mesh', '8', '--svg', 'p.svg']);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/not predictions/);
+    const svg = new DOMParserLike(String(files.get('p.svg'))).root;
+    expect(svg.getAttribute('data-figure')).toBe('stm');
+    expect(svg.getAttribute('data-pixels')).toBe('256 256');
+    expect(svg.querySelector('desc')!.textContent).toMatch(/V = −0\.5 V \(filled states\).*Tersoff–Hamann/);
+    expect(svg.querySelector('image')!.getAttribute('href')).toMatch(/^data:image\/png;base64,iVBORw0KGgo/);
+  });
+
   it('never replaces a file without --overwrite, and refuses missing or misplaced flags in the error form', async () => {
     const refused = async (argv: string[], pattern: RegExp, files: Record<string, string> = {}) => {
       const result = await cli(argv, files);
@@ -86,6 +97,8 @@ describe('lacuna plot', () => {
     await refused(['plot', 'alpha', '--figure', 'sheet', '--mesh', '4', '--svg', 'x.svg'], /^invalid --mesh: 4 \(not used by the sheet figure\)/);
     await refused(['plot', 'alpha', '--figure', 'bands', '--repeats', '2', '--svg', 'x.svg'], /^invalid --repeats: 2 \(only for --figure sheet\)/);
     await refused(['plot', 'alpha', '--figure', 'dos', '--dipole', '0.2', '--svg', 'x.svg'], /^invalid --dipole: 0.2 \(only for --figure eta-delta\)/);
+    await refused(['plot', 'alpha', '--figure', 'bands', '--bias', '1', '--svg', 'x.svg'], /^invalid --bias: 1 \(only for --figure stm\)/);
+    await refused(['plot', 'alpha', '--figure', 'stm', '--bias', '0', '--svg', 'x.svg'], /^invalid --bias: 0 \(\|V\| must be at least 0\.01 V/);
     await refused(['plot', 'alpha', '--figure', 'eta-delta', '--doping', '0.2', '--svg', 'x.svg'], /^invalid --doping: 0.2 \(not used by the eta-delta figure\)/);
     await refused(['plot', 'alpha', '--figure', 'eta-delta', '--distance', '2', '--svg', 'x.svg'], /^invalid --distance: 2 \(the distance d = 2 Å must be at least d0/);
     const replaced = await cli(['plot', 'alpha', '--figure', 'sheet', '--svg', 'x.svg', '--overwrite'], { 'x.svg': 'old' });

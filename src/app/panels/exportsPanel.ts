@@ -21,6 +21,7 @@ import type { App } from '../app.ts';
 import { download, svgText, svgToPng } from '../download.ts';
 import { libraryToJson, mergeLibraries, parseLibrary } from '../library.ts';
 import type { MetalPanel } from './metalPanel.ts';
+import type { StmPanel } from './stmPanel.ts';
 import { SpectrumView } from './spectrumView.ts';
 
 const $ = <T extends Element>(doc: Document, selector: string) => doc.querySelector<T>(selector)!;
@@ -31,11 +32,12 @@ function stem(label: string): string {
 }
 
 /** The figure in the publication style, from the data on screen. */
-export function publicationFigure(app: App, doc: Document, figure: string, metal?: MetalPanel): SVGSVGElement | undefined {
+export function publicationFigure(app: App, doc: Document, figure: string, metal?: MetalPanel, stm?: StmPanel): SVGSVGElement | undefined {
   const spectra = app.spectra;
   const options = { document: doc, style: 'publication' as const };
   if (figure === 'sheet') return sheetFigure(app.sheetData(), options);
   if (figure === 'eta-delta') return metal?.etaDelta.map ? etaDeltaFigure(metal.etaDelta.map, options) : undefined;
+  if (figure === 'stm' || figure === 'stm-measured') return stm?.figure(figure);
   if (!spectra) return undefined;
   const energyRange = SpectrumView.energyRange(spectra, app.energyWindow.low, app.energyWindow.high);
   const rule = app.ruleEnergy() ?? null;
@@ -52,14 +54,21 @@ export function publicationFigure(app: App, doc: Document, figure: string, metal
   return zoneFigure(spectra, options);
 }
 
-export function wireExports(app: App, doc: Document, metal?: MetalPanel): void {
+/** What to say when a figure is not there yet. */
+const NOT_READY: Record<string, string> = {
+  'eta-delta': 'the η–δ map is still being computed; try again in a moment',
+  stm: 'the STM model picture is still being computed; try again in a moment',
+  'stm-measured': 'no measured picture yet: open one in the STM panel (or press “DEMO picture”)',
+};
+
+export function wireExports(app: App, doc: Document, metal?: MetalPanel, stm?: StmPanel): void {
   const figureSelect = $<HTMLSelectElement>(doc, '#export-figure');
   const save = async (kind: string) => {
     const label = stem(app.resolved.label);
     const spectra = app.spectra;
     if (kind === 'svg' || kind === 'png') {
-      const svg = publicationFigure(app, doc, figureSelect.value, metal);
-      if (!svg) return app.notices.show(`the ${figureSelect.value === 'eta-delta' ? 'η–δ map is' : 'bands are'} still being computed; try again in a moment`, 'info');
+      const svg = publicationFigure(app, doc, figureSelect.value, metal, stm);
+      if (!svg) return app.notices.show(NOT_READY[figureSelect.value] ?? 'the bands are still being computed; try again in a moment', 'info');
       const name = `${label}-${figureSelect.value}`;
       if (kind === 'svg') download(doc, `${name}.svg`, new Blob([svgText(svg)], { type: 'image/svg+xml' }));
       else download(doc, `${name}.png`, await svgToPng(svg));

@@ -1,6 +1,6 @@
 /**
  * `lacuna plot`: one figure of a sheet — the sheet, its bands, its DOS or its Brillouin zone, or the η–δ map of the
- * named sheets on the four metals with this sheet marked — drawn in the publication look by the same figure code
+ * named sheets on the four metals with this sheet marked, or its simulated STM picture — drawn in the publication look by the same figure code
  * as the web view (src/figures), written as SVG and/or PNG.
  */
 import { invalid } from '../../io/invalid.ts';
@@ -11,6 +11,9 @@ import { prepareEtaDelta, prepareSheet, prepareSpectra } from '../../figures/pre
 import { svgText } from '../../figures/serialize.ts';
 import { sheetFigure } from '../../figures/sheet.ts';
 import { zoneFigure } from '../../figures/zone.ts';
+import { prepareStmSimulation } from '../../figures/prepareStm.ts';
+import { stmPictureFigure } from '../../figures/stmPicture.ts';
+import { STM_DEFAULTS, type StmMode } from '../../stm/simulate.ts';
 import { estimateHoleDensity } from '../../lattice/geometry.ts';
 import { SHEET_PRESETS } from '../../lattice/presets.ts';
 import { dopingMap } from '../../substrate/dopingMap.ts';
@@ -24,8 +27,13 @@ import { ProgressLine } from '../progress.ts';
 import { rasterise } from '../raster.ts';
 import { resolveSheet } from '../sheetArgument.ts';
 import { ALIGNMENT_FLAGS, SUBSTRATE_CAVEAT, alignmentOf } from '../substrateFlags.ts';
+import { BIAS_FLAG, HEIGHT_FLAG, MODE_FLAG, STM_CAVEAT } from '../stmFlags.ts';
+import { checkBias } from './stm.ts';
 
-export const FIGURES = ['sheet', 'bands', 'dos', 'zone', 'eta-delta'] as const;
+export const FIGURES = ['sheet', 'bands', 'dos', 'zone', 'eta-delta', 'stm'] as const;
+/** The STM figure's picture: 4 cells and 256 pixels per side, as `lacuna stm`'s defaults. */
+const STM_PICTURE = { cells: 4, pixels: 256 };
+const STM_ONLY = ['bias', 'height', 'mode'] as const;
 /** Mesh of each spectrum of the η–δ map (the `metals` command's default). */
 const MAP_MESH = 24;
 export type FigureName = (typeof FIGURES)[number];
@@ -35,7 +43,7 @@ export const PNG_SCALE = 2;
 
 const spec: CommandSpec = {
   name: 'plot',
-  summary: 'draw one figure of a sheet (sheet, bands, dos, zone, or eta-delta: the η–δ map with the sheet marked) in the publication look, as SVG and/or PNG',
+  summary: 'draw one figure of a sheet (sheet, bands, dos, zone, eta-delta: the η–δ map with the sheet marked, or stm: its simulated STM picture) in the publication look, as SVG and/or PNG',
   positionals: [SHEET_ARGUMENT],
   flags: {
     figure: { kind: 'choice', values: FIGURES, placeholder: FIGURES.join('|'), help: 'which figure (required)' },
@@ -48,6 +56,9 @@ const spec: CommandSpec = {
     points: { kind: 'integer', min: 10, max: 5000, placeholder: 'P', help: 'points on the automatic k-path (default 300)' },
     repeats: { kind: 'integer', min: 1, max: 20, placeholder: 'n', help: 'copies of the cell along each cell vector in the sheet figure (default 3)' },
     ...ALIGNMENT_FLAGS,
+    bias: { ...BIAS_FLAG, help: `${BIAS_FLAG.help}; only for --figure stm` },
+    height: { ...HEIGHT_FLAG, help: `${HEIGHT_FLAG.help}; only for --figure stm` },
+    mode: { ...MODE_FLAG, help: `${MODE_FLAG.help}; only for --figure stm` },
     overwrite: OVERWRITE_FLAG,
     json: JSON_FLAG,
   },
@@ -69,6 +80,11 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     }
   } else if (flags.repeats !== undefined) {
     invalid('--repeats', flags.repeats, 'only for --figure sheet');
+  }
+  if (figure !== 'stm') {
+    for (const flag of STM_ONLY) if (flags[flag] !== undefined) invalid(`--${flag}`, flags[flag], 'only for --figure stm');
+  } else if (flags.points !== undefined) {
+    invalid('--points', flags.points, 'not used by the stm figure');
   }
   if (figure === 'eta-delta') {
     for (const flag of ['doping', 'points'] as const) {
@@ -101,6 +117,16 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     });
     progress.done();
     svg = etaDeltaFigure(prepareEtaDelta(map, { label: source.label, eta: estimateHoleDensity(sheetData.sheet).eta }), options);
+  } else if (figure === 'stm') {
+    const mesh = (flags.mesh as number | undefined) ?? STM_DEFAULTS.mesh;
+    buildModel({ label: source.label, sheet: sheetData.sheet }, params, io, { flag: '--mesh', value: mesh, kpoints: (m) => m * m });
+    svg = stmPictureFigure(prepareStmSimulation(sheetData.sheet, params, {
+      label: source.label, biasField: '--bias', mesh, ...STM_PICTURE,
+      bias: checkBias((flags.bias as number | undefined) ?? STM_DEFAULTS.bias),
+      height: (flags.height as number | undefined) ?? STM_DEFAULTS.height,
+      mode: (flags.mode as StmMode | undefined) ?? STM_DEFAULTS.mode,
+      doping: flags.doping as number | undefined, smearing: flags.smearing as number | undefined,
+    }).figure, options);
   } else {
     // The smallest cell of a pattern (what the sheet figure's states refer to), after the work guard.
     buildModel({ label: source.label, sheet: sheetData.sheet }, params, io, meshWork(flags)(sheetData.sheet));
@@ -130,6 +156,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     io.out(`${MODEL_CAVEAT}\n`);
   }
   if (figure === 'eta-delta') io.out(`${SUBSTRATE_CAVEAT}\n`);
+  if (figure === 'stm') io.out(`${STM_CAVEAT}\n`);
   return 0;
 }
 
