@@ -338,6 +338,56 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     expect(errors).toEqual([]);
   });
 
+  it('edits your own parameter set field by field, keeps it over a reload, and imports a CIF back', async () => {
+    const { page, errors } = await openPage('#sheet=chi3');
+    await page.click('#params-editor summary');
+    await page.fill('#params-form input[name="name"]', 'my boron set');
+    await page.fill('#params-form input[name="d0"]', '-1');
+    await page.click('#params-form button[type="submit"]');
+    expect(await page.locator('#params-error').innerText()).toMatch(/^invalid d0: -1 \(/);
+    expect(await page.locator('#params-form input[name="d0"]').getAttribute('class')).toContain('invalid');
+    expect(await page.locator('#params-select').inputValue()).toBe('preset:harrison1980');
+    const before = await fermiOf(page);
+    await page.fill('#params-form input[name="d0"]', '1.69');
+    await page.fill('#params-form input[name="hopping.pp_pi"]', '-2.6');
+    await page.click('#params-form button[type="submit"]');
+    await page.waitForFunction((old) => document.querySelector('svg[data-figure="bands"] [data-fermi]')?.getAttribute('data-fermi') !== old, before);
+    expect(await page.locator('#params-select option:checked').innerText()).toBe('yours: my boron set');
+    await page.click('#save-sheet');
+    await page.reload();
+    await page.waitForSelector('svg[data-figure="bands"] [data-fermi]', { state: 'attached' });
+    // The link carries the set; the browser's library keeps the set and the kept sheet.
+    expect(await page.locator('#params-select option:checked').innerText()).toBe('yours: my boron set');
+    expect(await page.locator('#sheet-select').innerText()).toContain('kept: chi3');
+
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('[data-export="sheet-cif"]')]);
+    const cif = readFileSync(await download.path());
+    await page.selectOption('#sheet-select', 'preset:alpha');
+    await page.waitForFunction(() => document.querySelector('#summary')?.textContent?.startsWith('alpha'));
+    await page.setInputFiles('#import-sheet', { name: 'chi3.cif', mimeType: 'text/plain', buffer: cif });
+    await page.waitForFunction(() => document.querySelector('#summary')?.textContent?.includes('η = 0.2000'));
+    expect(errors).toEqual([]);
+  });
+
+  it('drags the tip of a cell vector to another lattice point, and zooms', async () => {
+    const { page, errors } = await openPage('#sheet=alpha');
+    const handle = (await page.locator('svg[data-figure="sheet"] [data-handle="A1"]').boundingBox())!;
+    const target = (await page.locator('svg[data-figure="sheet"] [data-site="4,0"]').first().boundingBox())!;
+    await page.mouse.move(handle.x + handle.width / 2, handle.y + handle.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(target.x + target.width / 2, target.y + target.height / 2, { steps: 8 });
+    await page.mouse.up();
+    await page.waitForFunction(() => (document.querySelector('#cell-a') as HTMLInputElement).value === '4');
+    expect(await page.inputValue('#cell-c')).toBe('3');
+    const sheet = (await page.locator('svg[data-figure="sheet"]').boundingBox())!;
+    await page.mouse.move(sheet.x + sheet.width / 2, sheet.y + sheet.height / 2);
+    await page.mouse.wheel(0, -400);
+    await page.waitForFunction(() => /scale\(/.test(document.querySelector('svg[data-figure="sheet"] [data-layer="content"]')?.getAttribute('transform') ?? ''));
+    await page.click('#undo');
+    await page.waitForFunction(() => (document.querySelector('#cell-a') as HTMLInputElement).value === '3');
+    expect(errors).toEqual([]);
+  });
+
   it('computes a 48×48 DOS in the worker (benchmark figure)', async () => {
     const { page } = await openPage('#sheet=beta12&mesh=48');
     const seconds = await page.evaluate(() => (window as unknown as { lacuna: { app: { timings: { lastSpectraMs: number } } } }).lacuna.app.timings.lastSpectraMs / 1000);
