@@ -24,7 +24,7 @@ import { pathPlace, SpectrumView } from './panels/spectrumView.ts';
 import { changeSupercell, resolveSheetChoice, toggleSite, type ResolvedSheet } from './sheetChoice.ts';
 import { parameterSet, writeHash, type ViewState } from './state.ts';
 import { Cancelled, WorkerLane } from './worker/client.ts';
-import type { SpectraInput, SpectraOutput } from './worker/modelWorker.ts';
+import type { BondingInput, SpectraInput, SpectraOutput } from './worker/modelWorker.ts';
 import { NO_SPECTRUM } from './worker/protocol.ts';
 
 /** Points on the automatic path, as the CLI's default. */
@@ -50,6 +50,8 @@ export interface Timings {
   lastSpectraMs?: number;
   lastSpectraWorkerSeconds?: number;
   lastFermiFrameMs?: number;
+  /** From a click that edits the sheet to its new bands drawn (ms). */
+  lastEditToBandsMs?: number;
   firstFigureMs?: number;
 }
 
@@ -71,6 +73,7 @@ export class App {
   readonly onSpectra: (() => void)[] = [];
   energyWindow: { low?: number; high?: number } = {};
   private solver: FermiSolver | undefined;
+  private editStarted: number | undefined;
   private readonly started = performance.now();
 
   constructor(
@@ -155,6 +158,7 @@ export class App {
 
   private editPattern(change: (pattern: NonNullable<ResolvedSheet['pattern']>) => NonNullable<ResolvedSheet['pattern']>): void {
     const pattern = this.resolved.pattern;
+    this.editStarted = performance.now();
     if (!pattern) {
       this.notices.show('this sheet is not a vacancy pattern of the triangular lattice, so its sites cannot be toggled');
       return;
@@ -280,6 +284,10 @@ export class App {
     const range = SpectrumView.energyRange(spectra, this.energyWindow.low, this.energyWindow.high);
     this.spectrumView.draw(spectra, { energyRange: range, selected: this.state.pick && this.selected ? this.state.pick : undefined, ruleEnergy: this.ruleEnergy() });
     this.timings.firstFigureMs ??= performance.now() - this.started;
+    if (this.editStarted !== undefined) {
+      this.timings.lastEditToBandsMs = performance.now() - this.editStarted;
+      this.editStarted = undefined;
+    }
     this.drawCounts();
   }
 
@@ -308,8 +316,6 @@ export class App {
       smearing: this.state.smearing,
       mesh: this.mesh().mesh,
       pathPoints: PATH_POINTS,
-      eta: this.resolved.eta,
-      etaEstimated: this.resolved.etaEstimated,
     };
     const started = performance.now();
     try {
@@ -317,12 +323,25 @@ export class App {
       this.elements.progress.hidden = true;
       this.timings.lastSpectraMs = performance.now() - started;
       this.spectra = output.data;
-      this.bonding = output.bonding;
+      this.bonding = undefined;
       this.solver = new FermiSolver(output.data.spectrum);
       this.drawSpectra();
       for (const listener of this.onSpectra) listener();
       if (this.state.pick) await this.loadState();
+      await this.computeBonding();
     } catch (error) {
+      this.jobFailed(error);
+    }
+  }
+
+  /** The σ-bonding analysis of the kept spectrum, after the figures (it is the slowest part and draws nothing). */
+  private async computeBonding(): Promise<void> {
+    const input: BondingInput = { eta: this.resolved.eta, etaEstimated: this.resolved.etaEstimated, smearing: this.state.smearing };
+    try {
+      this.bonding = await this.model.run<SigmaBondingResult>('bonding', input);
+      this.drawCounts();
+    } catch (error) {
+      if (error instanceof Error && error.message === NO_SPECTRUM) return;
       this.jobFailed(error);
     }
   }
@@ -331,13 +350,14 @@ export class App {
     const spectra = this.spectra;
     if (!spectra) return this.computeSpectra();
     try {
-      const output = await this.model.run<{ dos: SpectraData['dos']; fermi: number; bonding: SigmaBondingResult }>('width', {
-        smearing: this.state.smearing, doping: this.state.doping, eta: this.resolved.eta, etaEstimated: this.resolved.etaEstimated,
+      const output = await this.model.run<{ dos: SpectraData['dos']; fermi: number }>('width', {
+        smearing: this.state.smearing, doping: this.state.doping,
       });
       this.spectra = { ...spectra, dos: output.dos, fermi: output.fermi, smearing: this.state.smearing };
-      this.bonding = output.bonding;
+      this.bonding = undefined;
       this.drawSpectra();
       for (const listener of this.onSpectra) listener();
+      await this.computeBonding();
     } catch (error) {
       if (error instanceof Error && error.message === NO_SPECTRUM) return this.computeSpectra();
       this.jobFailed(error);

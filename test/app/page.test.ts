@@ -158,6 +158,7 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     await page.locator('svg[data-figure="sheet"] [data-site="0,0"]').first().click();
     await page.waitForFunction((old) => document.querySelector('svg[data-figure="bands"] [data-fermi]')?.getAttribute('data-fermi') !== old, alphaFermi);
     timings.toggleToBandsMs = Date.now() - started;
+    timings.editToBandsInPageMs = Math.round(await page.evaluate(() => (window as unknown as { lacuna: { app: { timings: { lastEditToBandsMs: number } } } }).lacuna.app.timings.lastEditToBandsMs));
     expect(await page.locator('#summary').innerText()).toContain('(edited)');
 
     const bands = page.locator('svg[data-figure="bands"]');

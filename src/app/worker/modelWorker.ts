@@ -10,7 +10,7 @@ import { energyGrid, gaussianDos } from '../../tb/dos.ts';
 import { fillSpectrum } from '../../tb/fill.ts';
 import { TightBindingModel } from '../../tb/model.ts';
 import type { ParameterSet } from '../../tb/params.ts';
-import { sigmaBonding, type SigmaBondingResult } from '../../tb/sigmaBonding.ts';
+import { sigmaBonding } from '../../tb/sigmaBonding.ts';
 import { NO_SPECTRUM, serveJobs } from './protocol.ts';
 
 export interface SpectraInput {
@@ -21,14 +21,16 @@ export interface SpectraInput {
   smearing: number;
   mesh: number;
   pathPoints: number;
-  /** Hole density for the σ-bonding analysis, and whether it is an estimate. */
-  eta: number;
-  etaEstimated: boolean;
 }
 
 export interface SpectraOutput {
   data: SpectraData;
-  bonding: SigmaBondingResult;
+}
+
+export interface BondingInput {
+  eta: number;
+  etaEstimated: boolean;
+  smearing: number;
 }
 
 export interface WidthInput {
@@ -59,17 +61,23 @@ serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
     });
     last = data;
     lastModel = new TightBindingModel(input.sheet, input.params);
-    const bonding = sigmaBonding(data.spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing, model: lastModel });
-    return { value: { data, bonding } satisfies SpectraOutput };
+    return { value: { data } satisfies SpectraOutput };
+  },
+  /**
+   * The σ-bonding analysis of the kept spectrum, its gaps checked off the mesh: a job of its own, run after the
+   * figures are drawn, so that it never delays the bands.
+   */
+  bonding: (input: BondingInput) => {
+    if (!last || !lastModel) throw new Error(NO_SPECTRUM);
+    return { value: sigmaBonding(last.spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing, model: lastModel }) };
   },
   /** A new Gaussian width on the kept spectrum: DOS, E_F and the σ-bonding analysis again, no diagonalisation. */
-  width: (input: WidthInput & { eta: number; etaEstimated: boolean }) => {
+  width: (input: WidthInput) => {
     if (!last) throw new Error(NO_SPECTRUM);
     const spectrum = last.spectrum;
     const dos = gaussianDos(spectrum, energyGrid(spectrum), input.smearing);
     const fermi = fillSpectrum(spectrum, { doping: input.doping, smearing: input.smearing }).fermi;
-    const bonding = sigmaBonding(spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing, model: lastModel });
-    return { value: { dos, fermi, bonding } };
+    return { value: { dos, fermi } };
   },
   /** One Bloch state on the kept path (the sheet and parameters are those of the last spectra). */
   state: (input: StateInput) => {
