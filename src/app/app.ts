@@ -64,6 +64,8 @@ export class App {
   library: Library;
   readonly history = new EditHistory<ViewState>();
   readonly model: WorkerLane;
+  /** A second model worker for the σ-bonding analysis, so it never holds up the bands or a picked state. */
+  readonly analysis: WorkerLane;
   readonly sheetView: SheetView;
   readonly spectrumView: SpectrumView;
   readonly timings: Timings = {};
@@ -74,6 +76,7 @@ export class App {
   energyWindow: { low?: number; high?: number } = {};
   private solver: FermiSolver | undefined;
   private editStarted: number | undefined;
+  private pickWaiting = false;
   private readonly started = performance.now();
 
   constructor(
@@ -89,6 +92,7 @@ export class App {
     this.library = loaded.library;
     if (loaded.error) notices.show(`${loaded.error.message} — the stored library could not be read; it was kept under a backup key and an empty one is used`);
     this.model = new WorkerLane(createModelWorker, 'model');
+    this.analysis = new WorkerLane(createModelWorker, 'analysis');
     this.sheetView = new SheetView(elements.sheetHost, {
       toggleSite: (i, j) => this.editPattern((pattern) => toggleSite(pattern, i, j)),
       moveCellVector: (vector, i, j) => this.moveCellVector(vector, i, j),
@@ -327,6 +331,7 @@ export class App {
       this.solver = new FermiSolver(output.data.spectrum);
       this.drawSpectra();
       for (const listener of this.onSpectra) listener();
+      this.pickWaiting = false;
       if (this.state.pick) await this.loadState();
       await this.computeBonding();
     } catch (error) {
@@ -336,12 +341,15 @@ export class App {
 
   /** The σ-bonding analysis of the kept spectrum, after the figures (it is the slowest part and draws nothing). */
   private async computeBonding(): Promise<void> {
-    const input: BondingInput = { eta: this.resolved.eta, etaEstimated: this.resolved.etaEstimated, smearing: this.state.smearing };
+    if (!this.spectra) return;
+    const input: BondingInput = {
+      sheet: this.resolved.sheet, params: parameterSet(this.state.params), spectrum: this.spectra.spectrum,
+      eta: this.resolved.eta, etaEstimated: this.resolved.etaEstimated, smearing: this.state.smearing,
+    };
     try {
-      this.bonding = await this.model.run<SigmaBondingResult>('bonding', input);
+      this.bonding = await this.analysis.run<SigmaBondingResult>('bonding', input);
       this.drawCounts();
     } catch (error) {
-      if (error instanceof Error && error.message === NO_SPECTRUM) return;
       this.jobFailed(error);
     }
   }
@@ -357,6 +365,10 @@ export class App {
       this.bonding = undefined;
       this.drawSpectra();
       for (const listener of this.onSpectra) listener();
+      if (this.pickWaiting) {
+        this.pickWaiting = false;
+        await this.loadState();
+      }
       await this.computeBonding();
     } catch (error) {
       if (error instanceof Error && error.message === NO_SPECTRUM) return this.computeSpectra();
@@ -380,8 +392,13 @@ export class App {
   async loadState(): Promise<void> {
     const pick = this.state.pick;
     const spectra = this.spectra;
-    // While new spectra are computed the drawn bands are stale: the pick is loaded when they arrive.
-    if (!pick || !spectra || this.model.busy) return;
+    if (!pick || !spectra) return;
+    // One job at a time on the model worker (a new one would end the running one and the spectrum it keeps):
+    // a pick made meanwhile is loaded when that job is done.
+    if (this.model.busy) {
+      this.pickWaiting = true;
+      return;
+    }
     if (!(pick.kIndex < spectra.path.count && pick.band < spectra.path.bands)) {
       this.notices.show(`invalid pick: "${pick.kIndex},${pick.band}" (the path has ${spectra.path.count} points and ${spectra.path.bands} bands)`);
       this.state = { ...this.state, pick: undefined };
@@ -400,6 +417,12 @@ export class App {
     } catch (error) {
       this.jobFailed(error);
     }
+    // A pick made while this one was computed.
+    if (this.pickWaiting && (this.state.pick?.kIndex !== pick.kIndex || this.state.pick?.band !== pick.band)) {
+      this.pickWaiting = false;
+      await this.loadState();
+    }
+    this.pickWaiting = false;
   }
 
   private jobFailed(error: unknown): void {

@@ -9,6 +9,7 @@ import type { SpectraData } from '../../figures/types.ts';
 import { energyGrid, gaussianDos } from '../../tb/dos.ts';
 import { fillSpectrum } from '../../tb/fill.ts';
 import { TightBindingModel } from '../../tb/model.ts';
+import type { MeshSpectrum } from '../../tb/meshSpectrum.ts';
 import type { ParameterSet } from '../../tb/params.ts';
 import { sigmaBonding } from '../../tb/sigmaBonding.ts';
 import { NO_SPECTRUM, serveJobs } from './protocol.ts';
@@ -28,6 +29,9 @@ export interface SpectraOutput {
 }
 
 export interface BondingInput {
+  sheet: Sheet;
+  params: ParameterSet;
+  spectrum: MeshSpectrum;
   eta: number;
   etaEstimated: boolean;
   smearing: number;
@@ -46,8 +50,6 @@ export interface StateInput {
 }
 
 let last: SpectraData | undefined;
-/** The model of the last spectra: σ-bonding gaps found on the mesh are checked off it. */
-let lastModel: TightBindingModel | undefined;
 
 serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
   spectra: (input: SpectraInput, progress) => {
@@ -60,16 +62,16 @@ serveJobs(self as unknown as DedicatedWorkerGlobalScope, {
       onProgress: (done: number, total: number) => progress(done, total, 'k-points'),
     });
     last = data;
-    lastModel = new TightBindingModel(input.sheet, input.params);
     return { value: { data } satisfies SpectraOutput };
   },
   /**
-   * The σ-bonding analysis of the kept spectrum, its gaps checked off the mesh: a job of its own, run after the
-   * figures are drawn, so that it never delays the bands.
+   * The σ-bonding analysis of a spectrum, its gaps checked off the mesh with the sheet's model: self-contained, so
+   * the page runs it in a second instance of this worker after the figures are drawn — it never delays the bands
+   * nor blocks a picked state.
    */
   bonding: (input: BondingInput) => {
-    if (!last || !lastModel) throw new Error(NO_SPECTRUM);
-    return { value: sigmaBonding(last.spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing, model: lastModel }) };
+    const model = new TightBindingModel(input.sheet, input.params);
+    return { value: sigmaBonding(input.spectrum, { holeDensity: input.eta, holeDensityEstimated: input.etaEstimated, smearing: input.smearing, model }) };
   },
   /** A new Gaussian width on the kept spectrum: DOS, E_F and the σ-bonding analysis again, no diagonalisation. */
   width: (input: WidthInput) => {
