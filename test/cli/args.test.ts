@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { parseArgs, type CommandSpec, type FlagValue } from '../../src/cli/args.ts';
 import { COMMANDS } from '../../src/cli/run.ts';
 import { ValidationError } from '../../src/io/invalid.ts';
+import { refusal as message } from '../io/refusal.ts';
 
 const demoSpec: CommandSpec = {
   name: 'demo',
@@ -20,16 +21,6 @@ const demoSpec: CommandSpec = {
     json: { kind: 'switch', help: '' },
   },
 };
-
-function message(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    expect(error).toBeInstanceOf(ValidationError);
-    return (error as Error).message;
-  }
-  throw new Error('expected a ValidationError');
-}
 
 describe('parseArgs(spec, argv)', () => {
   it('reads every kind of flag, in both --flag value and --flag=value forms', () => {

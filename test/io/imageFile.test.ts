@@ -5,17 +5,9 @@ import { describe, expect, it } from 'vitest';
 import { MAX_PICTURE_PIXELS, readPicture } from '../../src/io/imageFile.ts';
 import { ValidationError } from '../../src/io/invalid.ts';
 import { encodeGreyPng } from '../../src/io/png.ts';
+import { refusal } from './refusal.ts';
 
 const text = (s: string) => new TextEncoder().encode(s);
-function refusal(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    expect(error).toBeInstanceOf(ValidationError);
-    return (error as Error).message;
-  }
-  throw new Error('expected a ValidationError');
-}
 const ramp = (w: number, h: number, scale: number) => Array.from({ length: w * h }, (_, i) => ((i % w) + 3 * Math.floor(i / w)) * scale);
 
 describe('readPicture(file, bytes)', () => {

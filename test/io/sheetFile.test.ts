@@ -3,17 +3,7 @@ import { ValidationError } from '../../src/io/invalid.ts';
 import { parseSheetObject, parseSheetText } from '../../src/io/sheetFile.ts';
 import { MAX_ATOMS, MAX_NAME_LENGTH, MAX_SHEET_TEXT_LENGTH } from '../../src/io/sheetLimits.ts';
 import { SQRT3 } from '../../src/lattice/triangular.ts';
-
-/** The message of the ValidationError `run` throws (fails when it throws nothing or something else). */
-function refusal(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    expect(error).toBeInstanceOf(ValidationError);
-    return (error as Error).message;
-  }
-  throw new Error('accepted');
-}
+import { refusal } from './refusal.ts';
 
 const d = 1.69;
 const HEX_CELL = [[d, 0], [d / 2, (SQRT3 / 2) * d]];

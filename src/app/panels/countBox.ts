@@ -4,6 +4,7 @@
  */
 import type { SigmaBondingResult } from '../../tb/sigmaBonding.ts';
 import { nextMesh } from '../../tb/sigmaBondingRefine.ts';
+import { labelledRow } from './tableRows.ts';
 
 export interface CountFigures {
   eta: number;
@@ -49,15 +50,8 @@ export function drawCountBox(host: HTMLElement, figures: CountFigures): void {
   if (figures.sigma !== undefined && figures.pi !== undefined) rows.push(['σ / π electrons per atom', `${figures.sigma.toFixed(3)} / ${figures.pi.toFixed(3)}`]);
   if (figures.bandEnergy !== undefined) rows.push(['band energy per atom', `${figures.bandEnergy.toFixed(4)} eV`, 'compare only between patterns of equal η']);
   const table = doc.createElement('table');
-  for (const [name, value, title] of rows) {
-    const row = table.insertRow();
-    const label = row.insertCell();
-    label.textContent = name;
-    const cell = row.insertCell();
-    cell.className = 'num';
-    cell.textContent = value;
-    if (title) row.title = title;
-  }
+  const body = table.createTBody();
+  for (const [name, value, title] of rows) body.append(labelledRow(doc, name, value, title));
   const caveat = doc.createElement('p');
   caveat.className = 'caveat';
   caveat.textContent = `Model: ${figures.parameters}, ${figures.mesh}, Gaussian width ${figures.smearing} eV. The rule is a rule of thumb and the model an estimate (universal parameters bind σ states too strongly for boron); experiment and higher-level calculations decide.`;

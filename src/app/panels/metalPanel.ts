@@ -18,6 +18,7 @@ import { Cancelled, WorkerLane } from '../worker/client.ts';
 import type { FitsOutput } from '../worker/substrateWorker.ts';
 import { EtaDeltaMap, type Listed } from './etaDeltaMap.ts';
 import { drawFits } from './fitsTable.ts';
+import { labelledRow } from './tableRows.ts';
 
 const $ = <T extends Element>(doc: Document, selector: string) => doc.querySelector<T>(selector)!;
 const signed = (x: number, digits = 3) => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(digits)}`;
@@ -178,15 +179,9 @@ export class MetalPanel {
     ];
     const body = $<HTMLTableSectionElement>(this.doc, '#metal-dopings tbody');
     body.replaceChildren(...rows.map(([kind, name, value, title]) => {
-      const row = this.doc.createElement('tr');
+      const row = labelledRow(this.doc, name, value, title);
       row.className = kind;
       row.dataset.row = kind;
-      const label = row.insertCell();
-      label.textContent = name;
-      const cell = row.insertCell();
-      cell.className = 'num';
-      cell.textContent = value;
-      if (title) row.title = title;
       return row;
     }));
     const m = t.parameters;
