@@ -72,6 +72,9 @@ export interface MatchResult {
   emptyWindow: Structure[];
 }
 
+/** Score differences below this are rounding. */
+const TIE = 1e-6;
+
 export const MATCH_DEFAULTS = { sites: [2, 12] as [number, number], top: 5, bond: 1.69, mesh: 24, maxIndex: 4 };
 
 export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options: MatchOptions): MatchResult {
@@ -131,7 +134,9 @@ export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options
     let best: MatchCandidate | undefined;
     fits.forEach(({ target, scale, coincidence }, f) => {
       const { score, shift } = bestCorrelation(motif(target), model.subarray(f * points, (f + 1) * points), bins);
-      if (!best || score > best.score) {
+      // A coincidence must beat an own-cell fit clearly (a one-cell coincidence draws the same picture, up to rounding).
+      const margin = coincidence && best && !best.coincidence ? TIE : 0;
+      if (!best || score > best.score + margin) {
         best = { structure, score, scale, index: targets[target].index, shift: [shift[0] / bins, shift[1] / bins] };
         if (coincidence) best.coincidence = coincidence;
       }
