@@ -67,6 +67,11 @@ export interface StmState {
   sites: [number, number];
   /** Candidates listed. */
   top: number;
+  /**
+   * The metal (a substrate name) whose coincidence cells with each candidate are also tried as the measured cell;
+   * null: the candidate's own cell only (the default, as `match` without --substrate).
+   */
+  metal: string | null;
 }
 
 export interface ViewState {
@@ -107,7 +112,7 @@ export const LIMITS = {
 export const TIP_MODES: Record<string, StmMode> = { current: 'constant-current', height: 'constant-height' };
 
 export function defaultStm(): StmState {
-  return { bias: STM_DEFAULTS.bias, height: STM_DEFAULTS.height, mode: STM_DEFAULTS.mode, sites: [1, 12], top: 8 };
+  return { bias: STM_DEFAULTS.bias, height: STM_DEFAULTS.height, mode: STM_DEFAULTS.mode, sites: [1, 12], top: 8, metal: null };
 }
 
 /** Ag(111): the metal most boron sheets have been grown on. */
@@ -288,7 +293,7 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
 }
 
 /** The STM panel's keys, in the order they are written. */
-const STM_KEYS = ['bias', 'tip-height', 'tip-mode', 'match-sites', 'match-top'];
+const STM_KEYS = ['bias', 'tip-height', 'tip-mode', 'match-sites', 'match-top', 'match-metal'];
 
 function readStmKeys(get: (key: string) => string | undefined, stm: StmState, attempt: (action: () => void) => void): void {
   const bias = get('bias');
@@ -312,6 +317,8 @@ function readStmKeys(get: (key: string) => string | undefined, stm: StmState, at
   if (sites !== undefined) attempt(() => { stm.sites = rangeField('match-sites', sites, (p) => integerField('match-sites', p, LIMITS.matchSites[0], LIMITS.matchSites[1])); });
   const top = get('match-top');
   if (top !== undefined) attempt(() => { stm.top = integerField('match-top', top, LIMITS.top[0], LIMITS.top[1]); });
+  const metal = get('match-metal');
+  if (metal !== undefined) attempt(() => { stm.metal = requireSubstrate(metal, 'URL match-metal').name; });
 }
 
 function writeStmKeys(out: URLSearchParams, stm: StmState): void {
@@ -321,6 +328,7 @@ function writeStmKeys(out: URLSearchParams, stm: StmState): void {
   if (stm.mode !== base.mode) out.set('tip-mode', Object.keys(TIP_MODES).find((k) => TIP_MODES[k] === stm.mode)!);
   if (stm.sites.join('-') !== base.sites.join('-')) out.set('match-sites', stm.sites.join('-'));
   if (stm.top !== base.top) out.set('match-top', String(stm.top));
+  if (stm.metal !== null) out.set('match-metal', stm.metal);
 }
 
 // --- writing -------------------------------------------------------------------------------------------------

@@ -16,6 +16,7 @@ import { matchPatterns } from '../stm/match.ts';
 import { latticeOrigin } from '../stm/overlay.ts';
 import { stmModel, STM_DEFAULTS } from '../stm/simulate.ts';
 import { DEMO_LABEL, syntheticPicture } from '../stm/synthetic.ts';
+import { requireSubstrate } from '../substrate/substrates.ts';
 import { TightBindingModel } from '../tb/model.ts';
 import type { ParameterSet } from '../tb/params.ts';
 
@@ -99,7 +100,15 @@ export interface MatchInput extends TipSettings {
   top: number;
   smearing: number;
   doping: number;
+  /** A substrate name: its coincidence cells with each candidate are tried too (null: own cells only). */
+  metal: string | null;
 }
+
+/** How a candidate fits the measured cell: its own cell, or a coincidence cell with the metal (as `match --substrate`). */
+export type CandidateFit =
+  | { kind: 'cell' }
+  | { kind: 'coincidence'; metal: string; sites: number; sheetCells: number; angleDeg: number; strain: number; wood?: string;
+    sheetSupercell: [[number, number], [number, number]]; substrateSupercell: [[number, number], [number, number]] };
 
 /** One ranked candidate, as the table shows it and `app.showPattern` loads it. */
 export interface RankedCandidate {
@@ -110,6 +119,7 @@ export interface RankedCandidate {
   score: number;
   /** The candidate's cell against the fitted one (area ratio). */
   index: number;
+  fit: CandidateFit;
   pattern: { bond: number; supercell: [[number, number], [number, number]]; vacancies: [number, number][] };
 }
 
@@ -117,11 +127,15 @@ export interface MatchOutput {
   candidates: RankedCandidate[];
   examined: number;
   fitting: number;
+  /** Of those, fitting only through a coincidence cell. */
+  fittingByCoincidence: number;
   unscored: number;
 }
 
 export function rankCandidates(input: MatchInput, progress?: (examined: number) => void): MatchOutput {
+  const metal = input.metal === null ? undefined : requireSubstrate(input.metal, 'metal for matching');
   const result = matchPatterns(input.analysis, {
+    ...(metal ? { coincidence: { nnDistance: metal.nnDistance } } : {}),
     parameters: input.params, sites: input.sites, top: input.top,
     stm: { bias: input.bias, height: input.height, mode: input.mode, smearing: input.smearing, doping: input.doping, mesh: STM_DEFAULTS.mesh },
     onProgress: progress,
@@ -129,12 +143,18 @@ export function rankCandidates(input: MatchInput, progress?: (examined: number) 
   return {
     candidates: result.candidates.map((c) => {
       const p = c.structure.pattern;
+      const f = c.coincidence;
+      const fit: CandidateFit = !f || !metal ? { kind: 'cell' } : {
+        kind: 'coincidence', metal: metal.name, sites: f.sites, sheetCells: f.sheetCells, angleDeg: f.angleDeg, strain: f.strain,
+        sheetSupercell: f.sheetSupercell, substrateSupercell: f.substrateSupercell, ...(f.wood ? { wood: f.wood } : {}),
+      };
       return {
+        fit,
         name: c.structure.phase ?? `N${c.structure.sites}k${c.structure.holes}`, // as the Candidates panel names them
         sites: c.structure.sites, holes: c.structure.holes, eta: c.structure.eta, score: c.score, index: c.index,
         pattern: { bond: p.bond, supercell: hnfRows(p.supercell), vacancies: p.vacancies.map(([i, j]) => [i, j] as [number, number]) },
       };
     }),
-    examined: result.examined, fitting: result.fitting, unscored: result.emptyWindow.length,
+    examined: result.examined, fitting: result.fitting, fittingByCoincidence: result.fittingByCoincidence, unscored: result.emptyWindow.length,
   };
 }

@@ -22,6 +22,8 @@ export interface Correspondence {
   /** The candidate's cell vectors (Å, its own frame) that play the measured A1, A2. */
   vectors: [Vec2, Vec2];
   scale: number;
+  /** U, row-major [a, b, c, d]: vectors = U·(candidate rows), so the same choice can be applied to a related cell. */
+  transform: [number, number, number, number];
 }
 
 const len = (v: Vec2) => Math.hypot(v[0], v[1]);
@@ -42,7 +44,7 @@ export function correspondences(candidate: [Vec2, Vec2], measured: [Vec2, Vec2],
     if (Math.abs((len(u) * scale) / len(m1) - 1) > tolerance.shape) continue;
     if (Math.abs((len(v) * scale) / len(m2) - 1) > tolerance.shape) continue;
     if (Math.abs(angle(u, v) - angle(m1, m2)) > tolerance.angleDeg) continue;
-    out.push({ vectors: [u, v], scale });
+    out.push({ vectors: [u, v], scale, transform: [a, b, c, d] });
   }
   return out;
 }

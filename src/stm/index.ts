@@ -17,6 +17,7 @@ export * from './fold.ts';
 export * from './similarity.ts';
 export * from './analyse.ts';
 export * from './correspondence.ts';
+export * from './coincidenceMatch.ts';
 export * from './match.ts';
 export * from './overlay.ts';
 export * from './synthetic.ts';

@@ -5,6 +5,10 @@
  * choice of cell vectors, and ranked by the best Pearson correlation with the picture folded onto the same cell
  * (src/stm/fold.ts, src/stm/similarity.ts) over those choices and all translations. Registration is thus by the
  * lattice itself: rotation, scale and shear come from the fitted cell, translation from the correlation.
+ * With a metal given, a candidate also fits through its coincidence cells with that metal (src/stm/coincidenceMatch.ts):
+ * the free sheet's model picture on the sheet supercell that forms the coincidence cell is scored the same way. The
+ * model has no metal, so the moiré contrast itself is not modelled: such a score compares the sheet-periodic part of
+ * the picture only. At equal score the own cell is kept (the simpler explanation).
  * A high score says the model picture looks alike, not that the pattern is there: experiment and higher-level
  * calculations decide.
  */
@@ -15,7 +19,9 @@ import { reducedSheet } from '../lattice/reducedCell.ts';
 import type { ParameterSet } from '../tb/params.ts';
 import { TightBindingModel } from '../tb/model.ts';
 import type { Analysis } from './analyse.ts';
-import { CELL_TOLERANCE, correspondences, sublattices, type CellTolerance, type Correspondence } from './correspondence.ts';
+import type { CoincidenceFit } from '../substrate/coincidence.ts';
+import { coincidenceCellFits, type CellFit, type CoincidenceSearch } from './coincidenceMatch.ts';
+import { CELL_TOLERANCE, correspondences, sublattices, type CellTolerance } from './correspondence.ts';
 import { foldPicture } from './fold.ts';
 import { realCell } from './lattice.ts';
 import { bestCorrelation } from './similarity.ts';
@@ -34,6 +40,8 @@ export interface MatchOptions {
   parameters: ParameterSet;
   /** The simulation of each candidate (default mesh 24, as stm). */
   stm?: StmOptions;
+  /** Also try each candidate's coincidence cells with this metal (absent: the own cell only). */
+  coincidence?: CoincidenceSearch;
   /** Called after each structure examined, with the count so far. */
   onProgress?: (examined: number) => void;
 }
@@ -48,6 +56,8 @@ export interface MatchCandidate {
   index: number;
   /** Shift (fraction of the fitted cell vectors) of the model against the measured motif. */
   shift: [number, number];
+  /** The coincidence fit whose cell matched (absent: the candidate's own cell). */
+  coincidence?: CoincidenceFit;
 }
 
 export interface MatchResult {
@@ -56,9 +66,14 @@ export interface MatchResult {
   examined: number;
   /** Structures whose cell fits (each simulated once). */
   fitting: number;
+  /** Of those, fitting through a coincidence cell only (0 without a metal). */
+  fittingByCoincidence: number;
   /** Fitting structures not scored: no state in the bias window (E_F in a gap of the model wider than the bias). */
   emptyWindow: Structure[];
 }
+
+/** Score differences below this are rounding. */
+const TIE = 1e-6;
 
 export const MATCH_DEFAULTS = { sites: [2, 12] as [number, number], top: 5, bond: 1.69, mesh: 24, maxIndex: 4 };
 
@@ -81,6 +96,7 @@ export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options
   const found: MatchCandidate[] = [];
   let examined = 0;
   let fitting = 0;
+  let fittingByCoincidence = 0;
   const emptyWindow: Structure[] = [];
   const points = bins * bins;
   for (const structure of enumerateStructures({ sites, holes: [1, sites[1]], isolated: true, bond: options.bond ?? MATCH_DEFAULTS.bond })) {
@@ -89,19 +105,23 @@ export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options
     const sheet = patternToSheet(structure.pattern);
     if (sheet.atoms.length === 0) continue;
     const cell = reducedSheet(sheet).cell;
-    const fits: { target: number; fit: Correspondence }[] = [];
+    const fits: CellFit[] = [];
     targets.forEach((target, t) => {
-      for (const fit of correspondences(cell, target.vectors, tolerance)) fits.push({ target: t, fit });
+      for (const { vectors, scale } of correspondences(cell, target.vectors, tolerance)) fits.push({ target: t, vectors, scale });
     });
+    const own = fits.length;
+    // The sheet's own frame (not the reduced one): its model below is built on `sheet`.
+    if (options.coincidence) fits.push(...coincidenceCellFits(sheet, targets, options.coincidence, tolerance));
     if (fits.length === 0) continue;
     fitting++;
+    if (own === 0) fittingByCoincidence++;
     const stm = stmModel(new TightBindingModel(sheet, options.parameters), { mesh: MATCH_DEFAULTS.mesh, ...options.stm });
     if (!(stm.states > 1e-6)) {
       emptyWindow.push(structure);
       continue;
     }
     const x = new Float64Array(points * fits.length), y = new Float64Array(points * fits.length);
-    fits.forEach(({ fit: { vectors: [u, v] } }, f) => {
+    fits.forEach(({ vectors: [u, v] }, f) => {
       for (let i = 0; i < bins; i++) {
         for (let j = 0; j < bins; j++) {
           const s = (i + 0.5) / bins, t = (j + 0.5) / bins;
@@ -112,14 +132,17 @@ export function matchPatterns(analysis: Extract<Analysis, { ok: true }>, options
     });
     const model = evaluateStm(stm, x, y, new Float64Array(x.length));
     let best: MatchCandidate | undefined;
-    fits.forEach(({ target, fit }, f) => {
+    fits.forEach(({ target, scale, coincidence }, f) => {
       const { score, shift } = bestCorrelation(motif(target), model.subarray(f * points, (f + 1) * points), bins);
-      if (!best || score > best.score) {
-        best = { structure, score, scale: fit.scale, index: targets[target].index, shift: [shift[0] / bins, shift[1] / bins] };
+      // A coincidence must beat an own-cell fit clearly (a one-cell coincidence draws the same picture, up to rounding).
+      const margin = coincidence && best && !best.coincidence ? TIE : 0;
+      if (!best || score > best.score + margin) {
+        best = { structure, score, scale, index: targets[target].index, shift: [shift[0] / bins, shift[1] / bins] };
+        if (coincidence) best.coincidence = coincidence;
       }
     });
     if (best) found.push(best);
   }
   found.sort((p, q) => q.score - p.score);
-  return { candidates: found.slice(0, options.top ?? MATCH_DEFAULTS.top), examined, fitting, emptyWindow };
+  return { candidates: found.slice(0, options.top ?? MATCH_DEFAULTS.top), examined, fitting, fittingByCoincidence, emptyWindow };
 }

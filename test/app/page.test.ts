@@ -300,6 +300,16 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     expect(await page.locator('svg[data-figure="stm-measured"] [data-role="lattice-point"]').count()).toBeGreaterThan(20);
     await page.waitForSelector('#stm-candidates tbody tr', { timeout: 60_000 });
     expect(await page.locator('#stm-candidates tbody tr').first().getAttribute('data-name')).toBe('beta12');
+    expect(await page.locator('#stm-candidates tbody tr').first().locator('td').last().innerText()).toBe('own cell');
+
+    // Coincidence cells on Ag(111) too: the metal goes into the link; β12 (the DEMO picture is its free model, so its
+    // own cell is the measured one) stays first by its own cell.
+    await page.selectOption('#stm-match-form select[name="metal"]', 'ag111');
+    await page.click('#stm-match');
+    await page.waitForFunction(() => location.hash.includes('match-metal=ag111'));
+    await page.waitForFunction(() => /only through a coincidence cell/.test(document.querySelector('#stm-summary')?.textContent ?? ''), undefined, { timeout: 60_000 });
+    expect(await page.locator('#stm-candidates tbody tr').first().getAttribute('data-name')).toBe('beta12');
+    expect(await page.locator('#stm-candidates tbody tr').first().locator('td').last().innerText()).toBe('own cell');
 
     // A row loads its pattern into the sheet and bands; the model picture beside the measured one is redrawn for it.
     const fermiBefore = await fermiOf(page);

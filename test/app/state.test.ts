@@ -34,7 +34,7 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     expect(state.doping).toBe(0);
     expect(state.mesh).toBeUndefined();
     expect(errors.map((e) => e.message)).toEqual([
-      'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance, metal, sheet-work-function, dipole, distance, d0, bias, tip-height, tip-mode, match-sites, match-top)',
+      'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance, metal, sheet-work-function, dipole, distance, d0, bias, tip-height, tip-mode, match-sites, match-top, match-metal)',
       'invalid URL doping: "abc" (not a number)',
       'invalid URL mesh: "0" (must be from 1 to 400)',
       'invalid URL sites: "9-3" (the range is empty (low end above high end))',
@@ -76,9 +76,9 @@ describe('readHash(hash, base) and writeHash(state)', () => {
   it('round-trips the STM panel\'s tip and match settings, and leaves them out at their defaults', () => {
     const state = defaultState();
     state.sheet = { kind: 'preset', name: 'beta12' };
-    state.stm = { bias: -0.75, height: 5.5, mode: 'constant-height', sites: [4, 10], top: 20 };
+    state.stm = { bias: -0.75, height: 5.5, mode: 'constant-height', sites: [4, 10], top: 20, metal: 'cu111' };
     const hash = writeHash(state);
-    expect(hash).toBe('#sheet=beta12&bias=-0.75&tip-height=5.5&tip-mode=height&match-sites=4-10&match-top=20');
+    expect(hash).toBe('#sheet=beta12&bias=-0.75&tip-height=5.5&tip-mode=height&match-sites=4-10&match-top=20&match-metal=cu111');
     const { state: back, errors } = readHash(hash, defaultState());
     expect(errors).toEqual([]);
     expect(back).toEqual(state);
@@ -86,13 +86,14 @@ describe('readHash(hash, base) and writeHash(state)', () => {
   });
 
   it('refuses bad STM keys by name and keeps the others (zero bias: an empty window, as the CLI\'s --bias)', () => {
-    const { state, errors } = readHash('#sheet=alpha&bias=0&tip-height=0.5&tip-mode=sideways&match-sites=3-30&match-top=7', defaultState());
-    expect(state.stm).toEqual({ bias: 1, height: 4, mode: 'constant-current', sites: [1, 12], top: 7 });
+    const { state, errors } = readHash('#sheet=alpha&bias=0&tip-height=0.5&tip-mode=sideways&match-sites=3-30&match-top=7&match-metal=pt111', defaultState());
+    expect(state.stm).toEqual({ bias: 1, height: 4, mode: 'constant-current', sites: [1, 12], top: 7, metal: null });
     expect(errors.map((e) => e.message)).toEqual([
       'invalid URL bias: "0" (|V| must be at least 0.01 V: the window E_F … E_F + eV is empty at zero bias)',
       'invalid URL tip-height: "0.5" (must lie in [1.5, 15])',
       'invalid URL tip-mode: "sideways" (must be current or height)',
       'invalid URL match-sites: "30" (must be from 1 to 16)',
+      'invalid URL match-metal: "pt111" (unknown substrate; substrates: al111, ag111, cu111, au111)',
     ]);
   });
 });

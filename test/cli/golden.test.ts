@@ -10,7 +10,11 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../src/cli/run.ts';
-import { SHEET_PRESETS } from '../../src/lattice/presets.ts';
+import { encode as encodePng } from 'fast-png';
+import { patternToSheet } from '../../src/lattice/pattern.ts';
+import { findSheetPreset, SHEET_PRESETS } from '../../src/lattice/presets.ts';
+import type { Vec2 } from '../../src/lattice/sheet.ts';
+import { moirePicture } from '../stm/helpers.ts';
 import { fakeIo } from './fakeIo.ts';
 
 const GOLDEN = join(dirname(fileURLToPath(import.meta.url)), 'golden');
@@ -50,6 +54,16 @@ describe('CLI golden files', () => {
     expect(await runCli(['stm', 'beta12', '--pixels', '128', '--cells', '12', '--mesh', '12', '--png', 'b.png', '--json'], io)).toBe(0);
     const pixelSize = String(JSON.parse(io.stdout()).pixel_size);
     await matchesGolden('match-beta12', ['match', 'b.png', '--pixel-size', pixelSize, '--sites', '4-8', '--mesh', '12', '--json'], { 'b.png': io.files.get('b.png') as Uint8Array });
+  });
+  it('match (α on its √21 coincidence cell with Ag(111), synthetic) --sites 9-9 --substrate ag111 --json', async () => {
+    const AG = 4.0853 / Math.SQRT2;
+    const sheet = patternToSheet(findSheetPreset('alpha')!.pattern);
+    const rows = (r: [number, number][], [p, q]: [Vec2, Vec2]) => r.map(([i, j]) => [i * p[0] + j * q[0], i * p[1] + j * q[1]] as Vec2) as [Vec2, Vec2];
+    const picture = moirePicture(sheet, rows([[2, 1], [-1, 3]], sheet.cell), rows([[4, 1], [-1, 5]], [[AG, 0], [AG / 2, (AG * Math.sqrt(3)) / 2]]), { pixels: 256, pixelSize: 0.25, angleDeg: 30, tilt: 1, noise: 0.2, seed: 4, moire: 0.5 });
+    let lo = Infinity, hi = -Infinity;
+    for (const v of picture.values) { lo = Math.min(lo, v); hi = Math.max(hi, v); }
+    const png = encodePng({ width: 256, height: 256, data: Uint16Array.from(picture.values, (v) => Math.round((65535 * (v - lo)) / (hi - lo))), depth: 16, channels: 1 });
+    await matchesGolden('match-alpha-ag111', ['match', 'm.png', '--pixel-size', '0.25', '--sites', '9-9', '--mesh', '12', '--top', '3', '--substrate', 'ag111', '--json'], { 'm.png': png });
   });
   it('bands honeycomb --path auto --points 12 --json', () => matchesGolden('bands-honeycomb', ['bands', 'honeycomb', '--path', 'auto', '--points', '12', '--json']));
   it('enumerate --sites 1-6 --holes 0-6 --json', () => matchesGolden('enumerate-1-6', ['enumerate', '--sites', '1-6', '--holes', '0-6', '--json']));

@@ -12,7 +12,8 @@ import { parameterSet, type StmState } from '../state.ts';
 import {
   PICTURE_LIMITS, readBackground, readBias, readCells, readHeight, readMode, readPixels, readPixelSize, readSites, readTop,
 } from '../stmFields.ts';
-import { tipLine, type MatchOutput, type MeasuredOutput, type RankedCandidate, type SimulateOutput } from '../stmJobs.ts';
+import { SUBSTRATES } from '../../substrate/substrates.ts';
+import { tipLine, type CandidateFit, type MatchOutput, type MeasuredOutput, type RankedCandidate, type SimulateOutput } from '../stmJobs.ts';
 import { Cancelled, WorkerLane } from '../worker/client.ts';
 
 const $ = <T extends Element>(doc: Document, selector: string) => doc.querySelector<T>(selector)!;
@@ -46,6 +47,8 @@ export class StmPanel {
     $<HTMLInputElement>(doc, '#stm-file').addEventListener('change', (event) => void this.openFile(event.target as HTMLInputElement));
     for (const name of ['pixelSize', 'background']) this.field(picture, name).addEventListener('change', () => void this.analysePending());
     $<HTMLButtonElement>(doc, '#stm-demo').addEventListener('click', () => void this.demo());
+    const metals = $<HTMLFormElement>(doc, '#stm-match-form').elements.namedItem('metal') as HTMLSelectElement;
+    for (const metal of SUBSTRATES) metals.add(new Option(metal.title, metal.name));
     $<HTMLFormElement>(doc, '#stm-match-form').addEventListener('submit', (event) => {
       event.preventDefault();
       void this.match();
@@ -106,6 +109,7 @@ export class StmPanel {
     const match = $<HTMLFormElement>(this.doc, '#stm-match-form');
     this.field(match, 'sites').value = stm.sites.join('-');
     this.field(match, 'top').value = String(stm.top);
+    this.field(match, 'metal').value = stm.metal ?? '';
     for (const input of this.doc.querySelectorAll('.stm-inputs .invalid')) input.classList.remove('invalid');
   }
 
@@ -250,8 +254,9 @@ export class StmPanel {
     const summary = $<HTMLElement>(this.doc, '#stm-summary');
     if (sites === undefined || top === undefined) return this.showErrors(errors, 'the table is kept until it is corrected');
     const stm = this.app.state.stm;
-    if (sites.join('-') !== stm.sites.join('-') || top !== stm.top) {
-      this.shownStm = { ...stm, sites, top };
+    const metal = this.field(form, 'metal').value || null;
+    if (sites.join('-') !== stm.sites.join('-') || top !== stm.top || metal !== stm.metal) {
+      this.shownStm = { ...stm, sites, top, metal };
       await this.app.edit({ stm: this.shownStm }, 'none');
     }
     const measured = this.measured;
@@ -265,7 +270,7 @@ export class StmPanel {
     try {
       this.ranked = await this.matchLane.run<MatchOutput>('match', {
         analysis: measured.analysis, params: parameterSet(s.params), sites, top,
-        bias: s.stm.bias, height: s.stm.height, mode: s.stm.mode, smearing: s.smearing, doping: s.doping,
+        bias: s.stm.bias, height: s.stm.height, mode: s.stm.mode, smearing: s.smearing, doping: s.doping, metal,
       }, (done, total, what) => this.progress(done, total, what));
       this.drawTable(measured.name);
     } catch (error) {
@@ -286,7 +291,7 @@ export class StmPanel {
     const unscored = ranked.unscored > 0 ? ` ${ranked.unscored} fitting pattern(s) not scored: no state in the bias window (E_F in a gap of the model); a larger |V| reaches them.` : '';
     summary.textContent = ranked.candidates.length === 0
       ? `No pattern with a fitting cell among ${ranked.examined} examined: widen the sites, or check the pixel size.${unscored}`
-      : `${name}: ${ranked.fitting} of ${ranked.examined} isolated-hole patterns fit the lattice; the best ${ranked.candidates.length} by score at ${tipLine(s)}.${unscored} Click a row to load it into the sheet and see its model picture beside the measured one.`;
+      : `${name}: ${ranked.fitting} of ${ranked.examined} isolated-hole patterns fit the lattice${s.metal ? ` (${ranked.fittingByCoincidence} only through a coincidence cell with the metal: lattice matches, scored on the free sheet's model, the moiré not modelled)` : ''}; the best ${ranked.candidates.length} by score at ${tipLine(s)}.${unscored} Click a row to load it into the sheet and see its model picture beside the measured one.`;
     const body = $<HTMLTableSectionElement>(this.doc, '#stm-candidates tbody');
     body.replaceChildren(...ranked.candidates.map((c, i) => this.row(c, i + 1)));
   }
@@ -296,9 +301,9 @@ export class StmPanel {
     const key = JSON.stringify(candidate.pattern);
     row.dataset.name = candidate.name;
     row.setAttribute('aria-selected', String(key === this.selectedKey));
-    const cells = [String(rank), candidate.name, String(candidate.sites), String(candidate.holes), candidate.eta.toFixed(4), candidate.score.toFixed(3)];
+    const cells = [String(rank), candidate.name, String(candidate.sites), String(candidate.holes), candidate.eta.toFixed(4), candidate.score.toFixed(3), fitText(candidate.fit)];
     for (const text of cells) row.insertCell().textContent = text;
-    row.title = `supercell ${JSON.stringify(candidate.pattern.supercell)}, holes ${candidate.pattern.vacancies.map(([i, j]) => `(${i},${j})`).join(' ')}${candidate.index > 1 ? `; its cell is ${candidate.index}× the fitted one` : ''}`;
+    row.title = `supercell ${JSON.stringify(candidate.pattern.supercell)}, holes ${candidate.pattern.vacancies.map(([i, j]) => `(${i},${j})`).join(' ')}${candidate.index > 1 ? `; its cell is ${candidate.index}× the fitted one` : ''}${fitTitle(candidate.fit)}`;
     row.addEventListener('click', () => {
       this.selectedKey = key;
       for (const other of row.parentElement!.children) other.setAttribute('aria-selected', String(other === row));
@@ -328,4 +333,16 @@ export class StmPanel {
     else bar.removeAttribute('value');
     box.querySelector('span')!.textContent = total > 0 ? `${done} / ${total} ${what}` : `${done} ${what}`;
   }
+}
+
+/** The table's "fits by" cell: own cell, or the coincidence cell in short. */
+function fitText(fit: CandidateFit): string {
+  if (fit.kind === 'cell') return 'own cell';
+  return `${fit.wood ?? `${fit.sites} metal atoms`}, ${fit.angleDeg.toFixed(1)}°, ${(100 * fit.strain).toFixed(2)} %`;
+}
+
+function fitTitle(fit: CandidateFit): string {
+  if (fit.kind === 'cell') return '';
+  const rows = (r: number[][]) => `[${r.map((x) => `[${x.join(',')}]`).join(',')}]`;
+  return `; a coincidence cell on ${fit.metal}: ${fit.sheetCells} sheet cells on ${fit.sites} metal atoms, the sheet turned ${fit.angleDeg.toFixed(2)}°, strain ${(100 * fit.strain).toFixed(2)} %, sheet rows ${rows(fit.sheetSupercell)} → metal rows ${rows(fit.substrateSupercell)} (a lattice match; the moiré contrast is not modelled)`;
 }

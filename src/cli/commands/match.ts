@@ -17,8 +17,13 @@ import { resolveParameters } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
 import { BIAS_FLAG, HEIGHT_FLAG, MODE_FLAG, STM_CAVEAT, STM_MESH_FLAG, WORK_FUNCTION_FLAG } from '../stmFlags.ts';
 import { checkBias } from './stm.ts';
+import { requireSubstrate, SUBSTRATES } from '../../substrate/substrates.ts';
+import { COINCIDENCE_MATCH_DEFAULTS } from '../../stm/coincidenceMatch.ts';
+import type { CoincidenceFit } from '../../substrate/coincidence.ts';
 
 const SIMILARITY = 'Pearson correlation of the picture averaged onto the candidate\'s cell (fitted from the picture) with the candidate\'s model picture on that cell, best over the fitting choices of cell vectors (mirror images included) and all translations';
+
+const COINCIDENCE_SCORE = 'a coincidence cell is scored with the free sheet\'s model picture on the sheet supercell that forms it, in the fractional coordinates of the measured cell (the strain onto the metal is not drawn); the model has no metal, so the moiré contrast itself is not modelled and counts against every candidate alike: the score compares the sheet-periodic part of the picture only. The fit\'s angle is not checked against the picture. A lattice match is not a structure determination';
 
 const spec: CommandSpec = {
   name: 'match',
@@ -38,6 +43,8 @@ const spec: CommandSpec = {
     mesh: { ...STM_MESH_FLAG, help: 'Γ-centred M×M k-mesh of E_F and the LDOS of each candidate (default 24)' },
     smearing: SMEARING_FLAG,
     doping: DOPING_FLAG,
+    substrate: { kind: 'text', placeholder: 'NAME', help: `also let a candidate fit through its coincidence (moiré) cells with this metal surface (${SUBSTRATES.map((x) => x.name).join(', ')}), the measured cell being the coincidence cell` },
+    'max-strain': { kind: 'number', min: 0, max: 0.2, exclusiveMin: true, placeholder: 's', help: `with --substrate: largest strain of a coincidence, max |principal stretch − 1| (default ${COINCIDENCE_MATCH_DEFAULTS.maxStrain}; above 0 and at most 0.2)` },
     overlay: { kind: 'text', placeholder: 'FILE', help: 'also write the picture (background removed) with the fitted lattice points marked, as a PNG' },
     overwrite: OVERWRITE_FLAG,
     json: JSON_FLAG,
@@ -51,6 +58,9 @@ function run(argv: readonly string[], io: CliIo): number {
   if (pixelSize === undefined) invalid('--pixel-size', undefined, 'required: Å per pixel of the picture');
   const overlay = flags.overlay as string | undefined;
   checkOutputPath(io, '--overlay', overlay, flags.overwrite === true);
+  const maxStrain = flags['max-strain'] as number | undefined;
+  if (maxStrain !== undefined && flags.substrate === undefined) invalid('--max-strain', typedValue(argv, '--max-strain'), 'only with --substrate: the strain of a coincidence with a metal');
+  const substrate = flags.substrate === undefined ? undefined : requireSubstrate(flags.substrate as string, '--substrate');
   const bias = checkBias((flags.bias as number | undefined) ?? 1);
   const parameters = resolveParameters(flags.params as string | undefined, io);
   let bytes: Uint8Array;
@@ -78,6 +88,7 @@ function run(argv: readonly string[], io: CliIo): number {
       smearing: flags.smearing as number | undefined,
       doping: flags.doping as number | undefined,
     },
+    ...(substrate ? { coincidence: { nnDistance: substrate.nnDistance, maxStrain } } : {}),
     onProgress: (done) => progress.update(done, NaN),
   });
   progress.done();
@@ -95,12 +106,18 @@ function run(argv: readonly string[], io: CliIo): number {
           vacancies: c.structure.pattern.vacancies, score: c.score, eta: c.structure.eta, scale: c.scale, index: c.index, shift: c.shift,
         };
         if (c.structure.phase) out.phase = c.structure.phase;
+        if (substrate) out.fit = fitJson(c.coincidence);
         return out;
       }),
       image: { file, format: decoded.format, width: decoded.width, height: decoded.height, pixel_size: pixelSize },
       examined: result.examined, fitting: result.fitting, parameters: parameters.name,
       unscored: result.emptyWindow.map((st) => ({ sites: st.sites, holes: st.holes, supercell: hnfRows(st.pattern.supercell), vacancies: st.pattern.vacancies, why: 'no state in the bias window: E_F lies in a gap of the model wider than the bias' })),
       similarity: SIMILARITY,
+      ...(substrate ? {
+        substrate: { name: substrate.name, nn_distance: substrate.nnDistance, max_strain: maxStrain ?? COINCIDENCE_MATCH_DEFAULTS.maxStrain },
+        fitting_by_coincidence: result.fittingByCoincidence,
+        coincidence_score: COINCIDENCE_SCORE,
+      } : {}),
       model: 'Tersoff–Hamann on tight binding (model pictures, not predictions)',
     })}\n`);
     return 0;
@@ -108,7 +125,7 @@ function run(argv: readonly string[], io: CliIo): number {
   const lines = [
     `${file}: ${decoded.width}×${decoded.height} ${decoded.format} pixels of ${pixelSize} Å, about ${analysis.cells.toFixed(0)} cells`,
     `lattice  a = ${lattice.a.toFixed(3)} ± ${lattice.aError.toFixed(3)} Å, b = ${lattice.b.toFixed(3)} ± ${lattice.bError.toFixed(3)} Å, γ = ${lattice.gammaDeg.toFixed(2)} ± ${lattice.gammaDegError.toFixed(2)}° (${lattice.peaks} Fourier peaks)`,
-    `${result.examined} isolated-hole patterns examined, ${result.fitting} with a fitting cell`,
+    `${result.examined} isolated-hole patterns examined, ${result.fitting} with a fitting cell${substrate ? ` (${result.fittingByCoincidence} only through a coincidence cell with ${substrate.title}, strain up to ${maxStrain ?? COINCIDENCE_MATCH_DEFAULTS.maxStrain})` : ''}`,
   ];
   if (result.emptyWindow.length > 0) {
     lines.push(`${result.emptyWindow.length} fitting pattern(s) not scored: no state in the bias window (E_F in a gap of the model); a larger |--bias| reaches them: ${result.emptyWindow.map((st) => `N=${st.sites} k=${st.holes}${st.phase ? ` (${st.phase})` : ''}`).join(', ')}`);
@@ -117,10 +134,35 @@ function run(argv: readonly string[], io: CliIo): number {
   for (const c of result.candidates) {
     const holes = c.structure.pattern.vacancies.map(([i, j]) => `(${i},${j})`).join(' ');
     lines.push(`  score ${c.score.toFixed(3)}${c.index > 1 ? ` (cell ${c.index}× the fitted one)` : ''}  N=${c.structure.sites} k=${c.structure.holes} η=${c.structure.eta.toFixed(4)}  supercell ${JSON.stringify(hnfRows(c.structure.pattern.supercell))} holes ${holes}${c.structure.phase ? `  (${c.structure.phase})` : ''}`);
+    if (substrate) lines.push(`      ${fitText(c.coincidence)}`);
   }
-  lines.push(`score: ${SIMILARITY}.`, STM_CAVEAT);
+  lines.push(`score: ${SIMILARITY}.`);
+  if (substrate) lines.push(`On a metal: ${COINCIDENCE_SCORE}.`);
+  lines.push(STM_CAVEAT);
   io.out(`${lines.join('\n')}\n`);
   return 0;
+}
+
+/** The text typed for a flag (`--flag value` or `--flag=value`), for the refusal. */
+function typedValue(argv: readonly string[], flag: string): string {
+  const i = argv.findIndex((a) => a === flag || a.startsWith(`${flag}=`));
+  return argv[i] === flag ? argv[i + 1] : argv[i].slice(flag.length + 1);
+}
+
+/** How a candidate fits: its own cell, or a coincidence cell with the metal (rows as in the `fit` contract). */
+function fitJson(fit: CoincidenceFit | undefined): Record<string, unknown> {
+  if (!fit) return { kind: 'cell' };
+  return {
+    kind: 'coincidence', angle_deg: fit.angleDeg, strain: fit.strain, sheet_supercell: fit.sheetSupercell,
+    substrate_supercell: fit.substrateSupercell, sites: fit.sites, sheet_cells: fit.sheetCells,
+    moire: { a: fit.moire.a, b: fit.moire.b, gamma_deg: fit.moire.gammaDeg }, ...(fit.wood ? { wood: fit.wood } : {}),
+  };
+}
+
+function fitText(fit: CoincidenceFit | undefined): string {
+  if (!fit) return 'fits by its own cell';
+  const rows = (r: number[][]) => `[${r.map((x) => `[${x.join(',')}]`).join(',')}]`;
+  return `fits by a coincidence cell: ${fit.sheetCells} sheet cells on ${fit.sites} metal atoms${fit.wood ? ` ${fit.wood}` : ''}, turned ${fit.angleDeg.toFixed(2)}°, strain ${(100 * fit.strain).toFixed(2)} %, sheet rows ${rows(fit.sheetSupercell)} → metal rows ${rows(fit.substrateSupercell)}`;
 }
 
 export const matchCommand: Command = { spec, run };
