@@ -1,21 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/run.ts';
-import { fakeIo } from './fakeIo.ts';
+import { cli, refused } from './runCommand.ts';
 
-async function cli(argv: string[], files: Record<string, string> = {}) {
-  const io = fakeIo(files);
-  const code = await runCli(argv, io);
-  return { code, stdout: io.stdout(), stderr: io.stderr(), files: io.files };
-}
 
-/** Every error path: exit 2, exactly one line on stderr in the project's error form, nothing on stdout. */
-async function refused(argv: string[], pattern: RegExp, files: Record<string, string> = {}) {
-  const result = await cli(argv, files);
-  expect(result.code).toBe(2);
-  expect(result.stdout).toBe('');
-  expect(result.stderr).toMatch(/^invalid [^\n]+\n$/);
-  expect(result.stderr).toMatch(pattern);
-}
 
 describe('lacuna enumerate', () => {
   it('--json prints the contract document: counts and structures with both sheet forms', async () => {

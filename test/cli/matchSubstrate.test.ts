@@ -1,25 +1,12 @@
 import { encode as encodePng } from 'fast-png';
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/run.ts';
 import { patternToSheet } from '../../src/lattice/pattern.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
 import type { Vec2 } from '../../src/lattice/sheet.ts';
 import { moirePicture } from '../stm/helpers.ts';
-import { fakeIo } from './fakeIo.ts';
+import { cli, refused } from './runCommand.ts';
 
-async function cli(argv: string[], files: Record<string, string | Uint8Array> = {}) {
-  const io = fakeIo(files);
-  const code = await runCli(argv, io);
-  return { code, stdout: io.stdout(), stderr: io.stderr() };
-}
 
-async function refused(argv: string[], pattern: RegExp, files: Record<string, string | Uint8Array> = {}) {
-  const result = await cli(argv, files);
-  expect(result.code).toBe(2);
-  expect(result.stdout).toBe('');
-  expect(result.stderr).toMatch(/^invalid [^\n]+\n$/);
-  expect(result.stderr).toMatch(pattern);
-}
 
 // α strained onto its (√21×√21)R10.9° coincidence cell with Ag(111) (worked by hand in test/stm/coincidenceMatch.test.ts:
 // √7 of α's 3d cell on √21 of a_s = 4.0853/√2 Å, CRC Handbook, from memory; strain |√21·a_s/(√7·3d) − 1| = 0.0131),

@@ -4,25 +4,11 @@
  * test/tb/meshDensity.test.ts) and from the documented contract defaults (DESIGN.md: mesh 36 for `fill NAME`).
  */
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/run.ts';
 import { makePattern, patternToSheet } from '../../src/lattice/pattern.ts';
 import { DEFAULT_KSPACING, meshForSpacing } from '../../src/tb/meshDensity.ts';
-import { fakeIo } from './fakeIo.ts';
+import { cli, refused } from './runCommand.ts';
 
-async function cli(argv: string[], files: Record<string, string> = {}, tty = false) {
-  const io = fakeIo(files);
-  io.err.isTTY = tty;
-  const code = await runCli(argv, io);
-  return { code, stdout: io.stdout(), stderr: io.stderr() };
-}
 
-async function refused(argv: string[], pattern: RegExp, files: Record<string, string> = {}) {
-  const result = await cli(argv, files);
-  expect(result.code).toBe(2);
-  expect(result.stdout).toBe('');
-  expect(result.stderr).toMatch(/^invalid [^\n]+\n$/);
-  expect(result.stderr).toMatch(pattern);
-}
 
 /** A 16-site cell with one hole: 15 atoms, over the 12-atom limit of the fixed default mesh. */
 const large = { bond: 1.69, supercell: [[4, 0], [0, 4]] as [[number, number], [number, number]], vacancies: [[0, 0]] as [number, number][] };

@@ -1,26 +1,13 @@
 import { decode } from 'fast-png';
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/run.ts';
 import { encode as encodeJpeg } from 'jpeg-js';
 import { encode as encodePng } from 'fast-png';
 import { patternToSheet } from '../../src/lattice/pattern.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
 import { mulberry32, syntheticPicture } from '../stm/helpers.ts';
-import { fakeIo } from './fakeIo.ts';
+import { cli, refused } from './runCommand.ts';
 
-async function cli(argv: string[], files: Record<string, string | Uint8Array> = {}) {
-  const io = fakeIo(files);
-  const code = await runCli(argv, io);
-  return { code, stdout: io.stdout(), stderr: io.stderr(), files: io.files };
-}
 
-async function refused(argv: string[], pattern: RegExp, files: Record<string, string | Uint8Array> = {}) {
-  const result = await cli(argv, files);
-  expect(result.code).toBe(2);
-  expect(result.stdout).toBe('');
-  expect(result.stderr).toMatch(/^invalid [^\n]+\n$/);
-  expect(result.stderr).toMatch(pattern);
-}
 
 describe('lacuna stm', () => {
   it('--json prints the contract keys and writes a greyscale PNG that fast-png (an outside decoder) reads', async () => {

@@ -1,20 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/run.ts';
-import { fakeIo } from './fakeIo.ts';
+import { cli, refused } from './runCommand.ts';
 
-async function cli(argv: string[]) {
-  const io = fakeIo();
-  const code = await runCli(argv, io);
-  return { code, stdout: io.stdout(), stderr: io.stderr() };
-}
 
-async function refused(argv: string[], pattern: RegExp) {
-  const result = await cli(argv);
-  expect(result.code).toBe(2);
-  expect(result.stdout).toBe('');
-  expect(result.stderr).toMatch(/^invalid [^\n]+\n$/);
-  expect(result.stderr).toMatch(pattern);
-}
 
 describe('lacuna transfer', () => {
   it('--json carries every key of the DESIGN.md contract', async () => {
