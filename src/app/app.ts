@@ -20,7 +20,7 @@ import { loadLibrary, saveLibrary, type Library } from './library.ts';
 import { drawCountBox } from './panels/countBox.ts';
 import type { Notices } from './panels/notices.ts';
 import { SheetView } from './panels/sheetView.ts';
-import { pathPlace, SpectrumView } from './panels/spectrumView.ts';
+import { nextTask, pathPlace, SpectrumView } from './panels/spectrumView.ts';
 import { changeSupercell, resolveSheetChoice, toggleSite, type ResolvedSheet } from './sheetChoice.ts';
 import { parameterSet, writeHash, type ViewState } from './state.ts';
 import { Cancelled, WorkerLane } from './worker/client.ts';
@@ -105,7 +105,10 @@ export class App {
 
   /** Draws everything for the current state. */
   async start(): Promise<void> {
+    // One task each (the first, cold run of the figure code is the slowest): the sheet, then the rest.
+    await nextTask();
     this.drawSheet();
+    await nextTask();
     this.changed();
     await this.computeSpectra();
   }
@@ -282,23 +285,25 @@ export class App {
     return this.solver.solve(3 + doping, this.state.smearing).fermi;
   }
 
-  private drawSpectra(): void {
+  private async drawSpectra(): Promise<void> {
     const spectra = this.spectra;
     if (!spectra) return;
     const range = SpectrumView.energyRange(spectra, this.energyWindow.low, this.energyWindow.high);
-    this.spectrumView.draw(spectra, { energyRange: range, selected: this.state.pick && this.selected ? this.state.pick : undefined, ruleEnergy: this.ruleEnergy() });
+    const drawn = this.spectrumView.draw(spectra, { energyRange: range, selected: this.state.pick && this.selected ? this.state.pick : undefined, ruleEnergy: this.ruleEnergy() });
+    // The bands are on the page now (the DOS and zone follow in the next tasks).
     this.timings.firstFigureMs ??= performance.now() - this.started;
     if (this.editStarted !== undefined) {
       this.timings.lastEditToBandsMs = performance.now() - this.editStarted;
       this.editStarted = undefined;
     }
+    if (!(await drawn)) return;
     this.drawCounts();
   }
 
   /** Redraws the figures at a new energy window. */
   setEnergyWindow(low?: number, high?: number): void {
     this.energyWindow = { low, high };
-    this.drawSpectra();
+    void this.drawSpectra();
   }
 
   // --- jobs ----------------------------------------------------------------------------------------------------
@@ -329,7 +334,7 @@ export class App {
       this.spectra = output.data;
       this.bonding = undefined;
       this.solver = new FermiSolver(output.data.spectrum);
-      this.drawSpectra();
+      await this.drawSpectra();
       for (const listener of this.onSpectra) listener();
       this.pickWaiting = false;
       if (this.state.pick) await this.loadState();
@@ -363,7 +368,7 @@ export class App {
       });
       this.spectra = { ...spectra, dos: output.dos, fermi: output.fermi, smearing: this.state.smearing };
       this.bonding = undefined;
-      this.drawSpectra();
+      await this.drawSpectra();
       for (const listener of this.onSpectra) listener();
       if (this.pickWaiting) {
         this.pickWaiting = false;
@@ -411,7 +416,7 @@ export class App {
         sheet: this.resolved.sheet, params: parameterSet(this.state.params), kIndex: pick.kIndex, band: pick.band,
       });
       this.drawSheet();
-      this.drawSpectra();
+      await this.drawSpectra();
       const relative = this.selected.energy - spectra.fermi;
       this.elements.stateReadout.textContent = `State at ${pathPlace(spectra.path.labels, pick.kIndex)} (k = ${k[0].toFixed(3)}, ${k[1].toFixed(3)} Å⁻¹), band ${pick.band + 1}: E − E_F = ${relative >= 0 ? '+' : '−'}${Math.abs(relative).toFixed(3)} eV, σ share ${(100 * this.selected.sigma).toFixed(0)}%. Disc area on the sheet: weight on each atom; colour: phase.`;
     } catch (error) {

@@ -9,6 +9,7 @@ import { App } from './app.ts';
 import { Notices } from './panels/notices.ts';
 import { wireControls, readNumber } from './panels/controls.ts';
 import { CandidatesPanel } from './panels/candidatesPanel.ts';
+import { nextTask } from './panels/spectrumView.ts';
 import { wireExports } from './panels/exportsPanel.ts';
 import { MetalPanel } from './panels/metalPanel.ts';
 import { StmPanel } from './panels/stmPanel.ts';
@@ -58,8 +59,12 @@ const app = new App(
   () => new Worker(new URL('./worker/modelWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-model' }),
 );
 wireControls(app, document);
+// The panels are built one task apart, so that starting the page never holds the main thread for long.
+await nextTask();
 const candidates = new CandidatesPanel(app, document, () => new Worker(new URL('./worker/searchWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-search' }));
+await nextTask();
 const metal = new MetalPanel(app, document, () => new Worker(new URL('./worker/substrateWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-substrate' }), () => candidates.listed);
+await nextTask();
 const stm = new StmPanel(app, document, () => new Worker(new URL('./worker/stmWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-stm' }));
 wireExports(app, document, metal, stm);
 

@@ -9,6 +9,9 @@ import { setFermi, setRule } from '../../figures/energyPlot.ts';
 import { zoneFigure } from '../../figures/zone.ts';
 import type { SpectraData } from '../../figures/types.ts';
 
+/** The end of the current task: lets input and rendering in before the next piece of work. */
+export const nextTask = (): Promise<void> => new Promise((resolve) => setTimeout(resolve, 0));
+
 export interface SpectrumViewEvents {
   pick(kIndex: number, band: number): void;
 }
@@ -31,6 +34,8 @@ export class SpectrumView {
   zoneSvg: SVGSVGElement | undefined;
   private data: SpectraData | undefined;
   private fermi = 0;
+  private rule: number | undefined;
+  private generation = 0;
   private readonly tooltip: HTMLDivElement;
 
   constructor(
@@ -55,20 +60,35 @@ export class SpectrumView {
     return hi > lo ? [lo, hi] : [lo, lo + 1];
   }
 
-  draw(data: SpectraData, options: { energyRange: [number, number]; selected?: { kIndex: number; band: number }; ruleEnergy?: number }): void {
+  /**
+   * Draws bands, DOS and zone one task apart, so that no single task holds the page for long (the main thread
+   * stays free for input between them). A newer draw supersedes one still in progress; resolves false then.
+   * A doping change during the draw is honoured: each figure takes the latest E_F.
+   */
+  async draw(data: SpectraData, options: { energyRange: [number, number]; selected?: { kIndex: number; band: number }; ruleEnergy?: number }): Promise<boolean> {
+    const generation = ++this.generation;
     const doc = this.hosts.bands.ownerDocument;
     this.data = data;
     this.fermi = data.fermi;
+    this.rule = options.ruleEnergy;
     const bandsWidth = Math.max(360, Math.min(760, this.hosts.bands.clientWidth || 520));
+    const dosWidth = Math.max(140, this.hosts.dos.clientWidth || 170);
     const height = Math.round(Math.max(360, Math.min(560, bandsWidth * 0.85)));
     this.bandsSvg = bandsFigure(data, { document: doc, style: 'screen', width: bandsWidth, height, energyRange: options.energyRange, selected: options.selected });
-    this.dosSvg = dosFigure(data, { document: doc, style: 'screen', width: Math.max(140, this.hosts.dos.clientWidth || 170), height, energyRange: options.energyRange });
-    this.zoneSvg = zoneFigure(data, { document: doc, style: 'screen', width: 170, height: 170, selectedK: options.selected ? [data.path.kpoints[2 * options.selected.kIndex], data.path.kpoints[2 * options.selected.kIndex + 1]] : undefined });
     this.hosts.bands.replaceChildren(this.bandsSvg, this.tooltip);
-    this.hosts.dos.replaceChildren(this.dosSvg);
-    this.hosts.zone.replaceChildren(this.zoneSvg);
-    this.setRule(options.ruleEnergy);
     this.attach(this.bandsSvg);
+    setRule(this.bandsSvg, this.rule ?? null);
+    await nextTask();
+    if (generation !== this.generation) return false;
+    this.dosSvg = dosFigure(data, { document: doc, style: 'screen', width: dosWidth, height, energyRange: options.energyRange });
+    if (this.fermi !== data.fermi) setFermi(this.dosSvg, this.fermi);
+    setRule(this.dosSvg, this.rule ?? null);
+    this.hosts.dos.replaceChildren(this.dosSvg);
+    await nextTask();
+    if (generation !== this.generation) return false;
+    this.zoneSvg = zoneFigure(data, { document: doc, style: 'screen', width: 170, height: 170, selectedK: options.selected ? [data.path.kpoints[2 * options.selected.kIndex], data.path.kpoints[2 * options.selected.kIndex + 1]] : undefined });
+    this.hosts.zone.replaceChildren(this.zoneSvg);
+    return true;
   }
 
   /** Moves E_F on both figures (a doping-slider frame: attribute and clip updates only). */
@@ -80,6 +100,7 @@ export class SpectrumView {
 
   /** The dotted line where the counting rule's doping would put E_F (bands and DOS). */
   setRule(energy: number | undefined): void {
+    this.rule = energy;
     if (this.bandsSvg) setRule(this.bandsSvg, energy ?? null);
     if (this.dosSvg) setRule(this.dosSvg, energy ?? null);
   }
