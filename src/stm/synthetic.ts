@@ -33,7 +33,8 @@ export function mulberry32(seed: number): () => number {
   };
 }
 
-export function syntheticPicture(stm: StmModel, d: Distortion): Picture {
+/** The in-plane point (Å, the sheet's frame) under each pixel of a scan turned by d.angleDeg; row 0 at the top. */
+export function scanPoints(d: Pick<Distortion, 'pixels' | 'pixelSize' | 'angleDeg'>): { x: Float64Array; y: Float64Array } {
   const n = d.pixels;
   const x = new Float64Array(n * n), y = new Float64Array(n * n);
   const c = Math.cos((d.angleDeg * Math.PI) / 180), s = Math.sin((d.angleDeg * Math.PI) / 180);
@@ -43,15 +44,29 @@ export function syntheticPicture(stm: StmModel, d: Distortion): Picture {
     x[row * n + col] = c * u - s * v;
     y[row * n + col] = s * u + c * v;
   }
-  const values = evaluateStm(stm, x, y, new Float64Array(n * n));
+  return { x, y };
+}
+
+/**
+ * Adds to a clean picture, in units of its own corrugation (max − min): the tilt plane, Gaussian noise, and an
+ * optional extra signal per pixel (e.g. a moiré modulation). In place; returns the picture.
+ */
+export function distort(values: Float64Array, d: Distortion, extra?: (pixel: number) => number): Picture {
+  const n = d.pixels;
   let lo = Infinity, hi = -Infinity;
   for (const v of values) { lo = Math.min(lo, v); hi = Math.max(hi, v); }
   const range = hi - lo;
   const random = mulberry32(d.seed);
   for (let row = 0; row < n; row++) for (let col = 0; col < n; col++) {
+    const k = row * n + col;
     // Box–Muller for the Gaussian noise.
     const g = Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
-    values[row * n + col] += range * (d.tilt * (0.8 * col + 0.6 * row) / n + d.noise * g);
+    values[k] += range * ((extra ? extra(k) : 0) + d.tilt * (0.8 * col + 0.6 * row) / n + d.noise * g);
   }
   return { width: n, height: n, pixelSize: d.pixelSize, values };
+}
+
+export function syntheticPicture(stm: StmModel, d: Distortion): Picture {
+  const { x, y } = scanPoints(d);
+  return distort(evaluateStm(stm, x, y, new Float64Array(d.pixels * d.pixels)), d);
 }
