@@ -6,7 +6,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import { pathToFileURL } from 'node:url';
-import { timeEigensystem, timeEigenvalues } from '../src/tb/eighBench.ts';
+import { timeEigensystem, timeEigenvalues } from '../src/linalg/eighBench.ts';
 
 const SIZES = [24, 64, 128];
 /** Project targets for the eigenvalue-only ratio ours/numpy by size. */

@@ -14,7 +14,7 @@ import { wireExports } from './panels/exportsPanel.ts';
 import { MetalPanel } from './panels/metalPanel.ts';
 import { StmPanel } from './panels/stmPanel.ts';
 import { defaultState, readHash, type ViewState } from './state.ts';
-import { ValidationError } from '../io/invalid.ts';
+import { ValidationError } from '../validate/invalid.ts';
 
 const $ = <T extends Element>(selector: string) => document.querySelector<T>(selector)!;
 

@@ -6,7 +6,7 @@
  * Planar sheets diagonalise the σ (3n) and π (n) blocks separately — weights exactly 1 and 0, no eigenvectors;
  * buckled sheets diagonalise the full 4n block with eigenvectors.
  */
-import { HermitianEigensolver } from './eigh.ts';
+import { HermitianEigensolver } from '../linalg/eigh.ts';
 import type { TightBindingModel } from './model.ts';
 
 /** Bands at a list of k-points. */

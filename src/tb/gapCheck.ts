@@ -16,7 +16,7 @@
  * Which states count: 'all' every band; 'sigma' the σ block of a planar sheet (its σ and π bands cross freely,
  * since the blocks decouple); on a buckled sheet 'sigma' means all bands.
  */
-import { HermitianEigensolver } from './eigh.ts';
+import { HermitianEigensolver } from '../linalg/eigh.ts';
 import { reciprocal } from './kspace.ts';
 import { autoPath } from './kspacePath.ts';
 import type { MeshSpectrum } from './meshSpectrum.ts';

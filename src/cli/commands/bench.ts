@@ -1,8 +1,8 @@
 /**
  * `lacuna bench eigh`: seconds per matrix of the Hermitian eigensolver (DESIGN.md contract).
  */
-import { invalid } from '../../io/invalid.ts';
-import { timeEigenvalues } from '../../tb/eighBench.ts';
+import { invalid } from '../../validate/invalid.ts';
+import { timeEigenvalues } from '../../linalg/eighBench.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';

@@ -2,7 +2,7 @@
  * `lacuna rank`: enumerated patterns ranked by tight-binding band energy per atom, within groups of equal η.
  */
 import { enumerateStructures, type EnumerateOptions } from '../../enumerate/index.ts';
-import { invalid } from '../../io/invalid.ts';
+import { invalid } from '../../validate/invalid.ts';
 import { hnfRows, patternToSheet } from '../../lattice/pattern.ts';
 import { reducedSheet } from '../../lattice/reducedCell.ts';
 import { DEFAULT_KSPACING, rankByBandEnergy } from '../../tb/index.ts';
