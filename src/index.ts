@@ -15,6 +15,7 @@ export * from './lattice/separation.ts';
 export * from './lattice/recognise.ts';
 export * from './lattice/geometry.ts';
 export * from './lattice/holes.ts';
+export * from './lattice/sheetSymmetry.ts';
 export * from './lattice/presets.ts';
 // Vacancy-pattern enumeration.
 export * from './enumerate/index.ts';

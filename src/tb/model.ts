@@ -13,6 +13,7 @@
  */
 import { neighbours } from '../lattice/neighbours.ts';
 import { isPlanar, type Sheet } from '../lattice/sheet.ts';
+import { sheetOperations, type SheetOperation } from '../lattice/sheetSymmetry.ts';
 import type { ParameterSet } from './params.ts';
 import { ORBITALS, slaterKosterBlock } from './slaterKoster.ts';
 
@@ -65,6 +66,14 @@ export class TightBindingModel {
         this.blocks, 16 * e,
       );
     }
+  }
+
+  private symmetry: SheetOperation[] | undefined;
+
+  /** The sheet's symmetry operations (sheetSymmetry.ts), found on first use and kept: mesh stars and the real form use them. */
+  get operations(): readonly SheetOperation[] {
+    this.symmetry ??= sheetOperations(this.sheet);
+    return this.symmetry;
   }
 
   /** Order of the matrix for a block: 4n, 3n or n. */
