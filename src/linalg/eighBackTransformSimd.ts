@@ -13,6 +13,7 @@
  * Memory (bytes, f64 little-endian): X at 0, rows of 16n (an even count: a spare row when n is odd); then the
  * reflectors U (row k = u_k, entries k+1…n−1, 16 bytes each), their swapped copy S, and τ (8 bytes each).
  */
+import { multiplyRowsFunction } from './eighDivideSimd.ts';
 import { Code, assembleModule } from './wasmAssembler.ts';
 
 // Locals of applyReflectors: parameters, then i32, then v128, then f64.
@@ -118,7 +119,7 @@ function applyReflectorsBody(): number[] {
 
 let compiled: WebAssembly.Module | null | undefined;
 
-/** The compiled kernels, or null where WebAssembly SIMD is not available (the caller then uses TypeScript). */
+/** The compiled kernels (applyReflectors here, multiplyRows of eighDivideSimd.ts), or null where WebAssembly SIMD is not available (the caller then uses TypeScript). */
 export function simdModule(): WebAssembly.Module | null {
   if (compiled !== undefined) return compiled;
   compiled = null;
@@ -132,7 +133,7 @@ export function simdModule(): WebAssembly.Module | null {
           ...new Array<'f64'>(TK - TR + 1).fill('f64'),
         ],
         body: applyReflectorsBody(),
-      }]);
+      }, multiplyRowsFunction()]);
       if (WebAssembly.validate(bytes)) compiled = new WebAssembly.Module(bytes);
     }
   } catch {

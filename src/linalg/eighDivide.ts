@@ -17,6 +17,7 @@
  * both after a deflating rotation, from Q₂ only — the column types of LAPACK's dlaed2, described in Gu &
  * Eisenstat §5).
  */
+import { simdModule } from './eighBackTransformSimd.ts';
 import { secularRoot } from './eighSecular.ts';
 import { diagonaliseTridiagonal } from './eighTridiagonal.ts';
 
@@ -51,9 +52,31 @@ export class TridiagonalDivideConquer {
   private readonly leafOff: Float64Array;
   private readonly leafRows: Float64Array;
   private readonly leafRotations: Float64Array;
+  /** The SIMD product (eighDivideSimd.ts) and where its operands sit in its memory, or null (TypeScript). */
+  private readonly simd: { run: (...args: number[]) => void; a: number; bt: number; out: number } | null;
+  /** Row stride of `product` in the last merge. */
+  private productStride = 0;
 
-  constructor(maxN: number) {
+  /** With `useSimd` (default) the merge's product runs in WebAssembly SIMD where the runtime has it. */
+  constructor(maxN: number, useSimd = true) {
     this.maxN = maxN;
+    const module = useSimd ? simdModule() : null;
+    // Padded operands (see eighDivideSimd.ts): a spare row, columns to even counts, bt rows to multiples of 4.
+    const side = maxN + 4;
+    if (module !== null) {
+      const memory = new WebAssembly.Memory({ initial: Math.ceil((3 * 8 * side * side) / 65536) });
+      const instance = new WebAssembly.Instance(module, { env: { memory } });
+      const run = instance.exports.multiplyRows as (...args: number[]) => void;
+      this.columns = new Float64Array(memory.buffer, 0, side * side);
+      this.gatheredU = new Float64Array(memory.buffer, 8 * side * side, side * side);
+      this.product = new Float64Array(memory.buffer, 16 * side * side, side * side);
+      this.simd = { run, a: 0, bt: 8 * side * side, out: 16 * side * side };
+    } else {
+      this.columns = new Float64Array(maxN * maxN);
+      this.gatheredU = new Float64Array(maxN * maxN);
+      this.product = new Float64Array(maxN * maxN);
+      this.simd = null;
+    }
     this.poles = new Float64Array(maxN);
     this.weights = new Float64Array(maxN);
     this.origin = new Int32Array(maxN);
@@ -67,10 +90,7 @@ export class TridiagonalDivideConquer {
     this.grouped = new Int32Array(maxN);
     this.values = new Float64Array(maxN);
     this.finalOrder = new Int32Array(maxN);
-    this.columns = new Float64Array(maxN * maxN);
     this.update = new Float64Array(maxN * maxN);
-    this.product = new Float64Array(maxN * maxN);
-    this.gatheredU = new Float64Array(maxN * maxN);
     const leaf = Math.min(maxN, LEAF_SIZE);
     this.leafDiag = new Float64Array(leaf);
     this.leafOff = new Float64Array(leaf);
@@ -228,14 +248,15 @@ export class TridiagonalDivideConquer {
       }
       deflated[b + 1] = c;
     }
-    // Final columns: root i → product column i (m×k, row-major); deflated column c → block column c.
-    // Written to `columns` first (the block is still read for deflated columns), then copied back.
+    // Final columns: root i → product column i (m×k, row stride productStride); deflated column c → block
+    // column c. Written to `columns` first (the block is still read for deflated columns), then copied back.
     const columns = this.columns;
+    const stride = this.productStride;
     for (let a = 0, b = 0, out = 0; out < m; out++) {
       const takeRoot = b < k && (a >= deflatedCount || values[b] <= diag[lo + deflated[a]]);
       if (takeRoot) {
         this.updated[out] = values[b];
-        for (let r = 0; r < m; r++) columns[r * m + out] = product[r * k + b];
+        for (let r = 0; r < m; r++) columns[r * m + out] = product[r * stride + b];
         b++;
       } else {
         const c = deflated[a++];
@@ -317,17 +338,37 @@ export class TridiagonalDivideConquer {
     const columns = this.columns;
     const u = this.update;
     const rowsU = this.gatheredU;
+    const source = this.sorted;
+    for (let g2 = 0; g2 < k; g2++) source[g2] = lo + kept[grouped[g2]];
+    const simd = this.simd;
+    // SIMD operands are padded (eighDivideSimd.ts): stride kp even, a spare zero row, bt rows to k4.
+    const kp = simd === null ? k : k + (k & 1);
+    const k4 = simd === null ? k : (k + 3) & ~3;
     for (let r = 0; r < m; r++) {
-      const at = (lo + r) * n + lo;
-      for (let g2 = 0; g2 < k; g2++) columns[r * k + g2] = vectors[at + kept[grouped[g2]]];
+      const at = (lo + r) * n;
+      const row = r * kp;
+      for (let g2 = 0; g2 < k; g2++) columns[row + g2] = vectors[at + source[g2]];
+      if (kp > k) columns[row + k] = 0;
     }
     for (let i = 0; i < k; i++) {
       const row = i * k;
-      for (let g2 = 0; g2 < k; g2++) rowsU[row + g2] = u[row + grouped[g2]];
+      const to = i * kp;
+      for (let g2 = 0; g2 < k; g2++) rowsU[to + g2] = u[row + grouped[g2]];
+      if (kp > k) rowsU[to + k] = 0;
     }
     const product = this.product;
-    multiplyRows(columns, rowsU, product, 0, n1, 0, topCount + mixedCount, k);
-    multiplyRows(columns, rowsU, product, n1, m, topCount, k, k);
+    this.productStride = k4;
+    if (simd === null) {
+      multiplyRows(columns, rowsU, product, 0, n1, 0, topCount + mixedCount, k);
+      multiplyRows(columns, rowsU, product, n1, m, topCount, k, k);
+      return;
+    }
+    columns.fill(0, m * kp, (m + 1) * kp);
+    rowsU.fill(0, k * kp, k4 * kp);
+    const even = (x: number) => x + (x & 1);
+    // Rows 0…n1−1 (a pair may run into row n1, which the second call then overwrites), then n1…m−1.
+    simd.run(simd.a, simd.bt, simd.out, even(n1), k4, 0, 16 * (even(topCount + mixedCount) >> 1), 8 * kp, 8 * k4);
+    simd.run(simd.a + 8 * n1 * kp, simd.bt, simd.out + 8 * n1 * k4, even(m - n1), k4, 16 * (topCount >> 1), 8 * kp, 8 * kp, 8 * k4);
   }
 
 }

@@ -59,18 +59,18 @@ export function secularRoot(
     let psi = 0;
     let psiSlope = 0;
     for (let j = 0; j <= i; j++) {
-      const delta = poles[j] - dOrigin - tau;
-      const t = weights[j] / delta;
+      const inverse = 1 / (poles[j] - dOrigin - tau);
+      const t = weights[j] * inverse;
       psi += t;
-      psiSlope += t / delta;
+      psiSlope += t * inverse;
     }
     let phi = 0;
     let phiSlope = 0;
     for (let j = i + 1; j < k; j++) {
-      const delta = poles[j] - dOrigin - tau;
-      const t = weights[j] / delta;
+      const inverse = 1 / (poles[j] - dOrigin - tau);
+      const t = weights[j] * inverse;
       phi += t;
-      phiSlope += t / delta;
+      phiSlope += t * inverse;
     }
     const f = 1 + psi + phi;
     // Rounding bound of the sum (every term of ψ is negative, of φ positive), plus the effect of τ's own
