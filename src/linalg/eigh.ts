@@ -29,8 +29,10 @@ export const DIVIDE_FROM = 40;
 export interface EigensolverOptions {
   /** Tridiagonal eigenvector method: 'auto' (default: by DIVIDE_FROM), 'qr' or 'divide'. */
   tridiagonal?: 'auto' | 'qr' | 'divide';
-  /** Use the WebAssembly SIMD back-transformation when available (default true); false forces TypeScript. */
+  /** Use the WebAssembly SIMD kernels when available (default true); false forces TypeScript throughout. */
   simd?: boolean;
+  /** Largest block divide and conquer solves by QR (default LEAF_SIZE of eighDivide.ts); tests set it low. */
+  leafSize?: number;
 }
 
 /**
@@ -61,7 +63,8 @@ export class HermitianEigensolver {
   constructor(n: number, options: EigensolverOptions = {}) {
     this.n = n;
     const method = options.tridiagonal ?? 'auto';
-    this.divider = method === 'divide' || (method === 'auto' && n >= DIVIDE_FROM) ? new TridiagonalDivideConquer(n) : null;
+    this.divider = method === 'divide' || (method === 'auto' && n >= DIVIDE_FROM) ? new TridiagonalDivideConquer(n, { simd: options.simd, leafSize: options.leafSize })
+      : null;
     const module = options.simd === false ? null : simdModule();
     this.simd = module === null || n < 2 ? null : new SimdBackTransform(n, module);
     this.reduction = new HermitianTridiagonaliser(n);

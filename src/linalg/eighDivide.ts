@@ -57,10 +57,18 @@ export class TridiagonalDivideConquer {
   /** Row stride of `product` in the last merge. */
   private productStride = 0;
 
-  /** With `useSimd` (default) the merge's product runs in WebAssembly SIMD where the runtime has it. */
-  constructor(maxN: number, useSimd = true) {
+  /** Blocks up to this order are leaves (QR). */
+  readonly leafSize: number;
+
+  /**
+   * Options: `simd` (default true) runs the merge's product in WebAssembly SIMD where the runtime has it;
+   * `leafSize` (default LEAF_SIZE, at least 1) is the largest block solved by QR — tests set it low to merge
+   * at small orders.
+   */
+  constructor(maxN: number, options: { simd?: boolean; leafSize?: number } = {}) {
     this.maxN = maxN;
-    const module = useSimd ? simdModule() : null;
+    this.leafSize = Math.max(1, options.leafSize ?? LEAF_SIZE);
+    const module = options.simd === false ? null : simdModule();
     // Padded operands (see eighDivideSimd.ts): a spare row, columns to even counts, bt rows to multiples of 4.
     const side = maxN + 4;
     if (module !== null) {
@@ -91,7 +99,7 @@ export class TridiagonalDivideConquer {
     this.values = new Float64Array(maxN);
     this.finalOrder = new Int32Array(maxN);
     this.update = new Float64Array(maxN * maxN);
-    const leaf = Math.min(maxN, LEAF_SIZE);
+    const leaf = Math.max(1, Math.min(maxN, this.leafSize));
     this.leafDiag = new Float64Array(leaf);
     this.leafOff = new Float64Array(leaf);
     this.leafRows = new Float64Array(leaf * leaf);
@@ -110,7 +118,7 @@ export class TridiagonalDivideConquer {
 
   private block(diag: Float64Array, off: Float64Array, n: number, vectors: Float64Array, lo: number, hi: number): boolean {
     const m = hi - lo;
-    if (m <= LEAF_SIZE) return this.leaf(diag, off, n, vectors, lo, hi);
+    if (m <= this.leafSize) return this.leaf(diag, off, n, vectors, lo, hi);
     const mid = lo + (m >> 1);
     const beta = off[mid - 1];
     const rho = Math.abs(beta);
