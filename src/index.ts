@@ -23,6 +23,9 @@ export * from './enumerate/index.ts';
 export * from './tb/index.ts';
 export { RealSymmetricEigensolver } from './linalg/eighReal.ts';
 export { timeEigenvalues } from './linalg/eighBench.ts';
+// The vacancy cluster expansion fitted to the user's energies, and its file.
+export * from './expansion/index.ts';
+export * from './io/energiesFile.ts';
 // Metal substrates: coincidence fits and electron transfer.
 export * from './substrate/index.ts';
 // Input and output.

@@ -9,6 +9,7 @@ import { bondingCommand } from './commands/bonding.ts';
 import { benchCommand } from './commands/bench.ts';
 import { dosCommand } from './commands/dos.ts';
 import { enumerateCommand } from './commands/enumerate.ts';
+import { expandCommand } from './commands/expand.ts';
 import { exportCommand } from './commands/export.ts';
 import { fillCommand } from './commands/fill.ts';
 import { fitCommand } from './commands/fit.ts';
@@ -25,7 +26,7 @@ import { PIPE_CLOSED_STATUS, PipeClosed, type CliIo, type Command } from './io.t
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
-  plotCommand, transferCommand, fitCommand, metalsCommand, stmCommand, matchCommand, presetsCommand, benchCommand,
+  plotCommand, transferCommand, fitCommand, metalsCommand, stmCommand, matchCommand, expandCommand, presetsCommand, benchCommand,
 ];
 
 function overview(): string {

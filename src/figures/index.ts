@@ -9,6 +9,8 @@ export { setFermi, setRule } from './energyPlot.ts';
 export { stmPictureFigure, wrapWords } from './stmPicture.ts';
 export * from './prepareStm.ts';
 export { etaDeltaFigure, metalMarker, setMetalFocus, type EtaDeltaOptions } from './etaDelta.ts';
+export { energyHullFigure, energyHullPick, setEnergyHullSelected, type EnergyHullOptions } from './energyHull.ts';
+export * from './prepareEnergyHull.ts';
 export { svgText, serializeFigure } from './serialize.ts';
 export { SIGMA_COLOUR, PI_COLOUR, shareColour, phaseColour } from './palette.ts';
 export { FONT_FAMILY } from './look.ts';

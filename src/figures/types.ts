@@ -186,3 +186,40 @@ export interface StmPictureData {
   /** A label in warning colour (DEMO pictures). */
   demo?: string;
 }
+
+/**
+ * One point of the energy–η figure. Energies are per lattice site relative to the reference line, in eV.
+ * `kind` and `index` say where it comes from (the user's structure, or the prediction), so the view finds its pattern.
+ */
+export interface EnergyHullPoint {
+  kind: 'computed' | 'predicted';
+  index: number;
+  eta: number;
+  relative: number;
+  label: string;
+  /** Predictions: standard error per site (eV). */
+  uncertainty?: number;
+  /** Rank (1 = first) among the suggestions, when suggested. */
+  suggested?: number;
+  /** Computed: the fit's value (relative, eV per site), drawn as a tick beside the point. */
+  fitted?: number;
+}
+
+/** What the energy–η figure (src/figures/energyHull.ts) shows of a cluster-expansion result. */
+export interface EnergyHullData {
+  /** The energies file's title, if any (a DEMO file says so there). */
+  title?: string;
+  demo: boolean;
+  /** The line subtracted from every energy per site: e0 + slope·η (eV), through the hull's end points. */
+  reference: { energy0: number; slope: number };
+  computed: EnergyHullPoint[];
+  /** Predictions of patterns not computed (computed ones are shown as the user's points). */
+  predicted: EnergyHullPoint[];
+  /** Vertices (η, relative energy) of the hull of the calculations, and of the hull with the predictions. */
+  hull: [number, number][];
+  fitHull: [number, number][];
+  /** Fit errors per site (eV) and the cluster set in words. */
+  fitRms: number;
+  cvRms: number;
+  clusters: string;
+}
