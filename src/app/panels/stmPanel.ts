@@ -135,7 +135,8 @@ export class StmPanel {
     if (cells === undefined || pixels === undefined) return this.showErrors(errors, 'the picture is not redrawn until it is corrected');
     const r = this.app.resolved;
     const s = this.app.state;
-    const status = $<HTMLElement>(this.doc, '#stm-model-status');
+    // The status line leaves the page when a picture is drawn over it: made anew when a later picture fails.
+    const status = this.doc.querySelector<HTMLElement>('#stm-model-status') ?? Object.assign(this.doc.createElement('p'), { id: 'stm-model-status', className: 'muted' });
     this.busy('model picture…');
     try {
       const output = await this.pictureLane.run<SimulateOutput>('simulate', {
