@@ -1,8 +1,8 @@
 /**
  * The page's entry: the starting view (the URL hash if there is one, else the embedded demo scenario), the
- * controller, the panels, and the page-wide keys. Everything it shows is computed by the core (src/), in two
+ * controller, the panels, and the page-wide keys. Everything it shows is computed by the core (src/), in its
  * workers: the model worker (bands, DOS, filling, states), the search worker (enumeration, ranking), the substrate
- * worker (the Metal panel) and the STM worker (the STM panel).
+ * worker (the Metal panel), the STM worker (the STM panel) and the expansion worker (the Energies panel).
  */
 import demo from '../../presets/demo/harbour-lab.json' with { type: 'json' };
 import { App } from './app.ts';
@@ -13,6 +13,7 @@ import { nextTask } from './panels/spectrumView.ts';
 import { wireExports } from './panels/exportsPanel.ts';
 import { MetalPanel } from './panels/metalPanel.ts';
 import { StmPanel } from './panels/stmPanel.ts';
+import { EnergiesPanel } from './panels/energiesPanel.ts';
 import { defaultState, readHash, type ViewState } from './state.ts';
 import { ValidationError } from '../validate/invalid.ts';
 
@@ -67,6 +68,8 @@ const metal = new MetalPanel(app, document, () => new Worker(new URL('./worker/s
 await nextTask();
 const stm = new StmPanel(app, document, () => new Worker(new URL('./worker/stmWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-stm' }));
 wireExports(app, document, metal, stm);
+await nextTask();
+const energies = new EnergiesPanel(app, document, () => new Worker(new URL('./worker/expansionWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-expansion' }));
 
 if (opensDemo) {
   const note = $<HTMLElement>('#demo-note');
@@ -121,7 +124,7 @@ window.addEventListener('hashchange', () => {
 });
 
 // For the browser test and the benchmark it prints: the controller and its timings.
-(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal, stm };
+(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal, stm, energies };
 
 void app.start().then(() => {
   if (opensDemo) void candidates.search();

@@ -32,7 +32,8 @@ function number(label: string, text: string): number {
   return Number(trimmed);
 }
 
-function integer(label: string, text: string, [low, high]: readonly [number, number]): number {
+/** A whole number within [low, high], named by `label` when refused. */
+export function integer(label: string, text: string, [low, high]: readonly [number, number]): number {
   const x = number(label, text);
   if (!Number.isInteger(x)) invalid(label, text.trim(), 'not a whole number');
   if (!(x >= low && x <= high)) invalid(label, text.trim(), `must be from ${low} to ${high}`);
@@ -76,12 +77,13 @@ export function readBackground(text: string): Background {
   return text;
 }
 
-/** A range such as 1-12 (or one number). */
-export function readSites(text: string): [number, number] {
-  const label = STM_FIELD_NAMES.sites;
+/** A range of whole numbers such as 1-12 (or one number) within `limits`, named by `label` when refused. */
+export function integerRange(label: string, text: string, limits: readonly [number, number]): [number, number] {
   const match = /^\s*([^-\s]+)\s*(?:-\s*([^-\s]+)\s*)?$/.exec(text);
   if (!match) invalid(label, text, 'not a range such as 1-12 or 6');
-  const pair: [number, number] = [integer(label, match[1], LIMITS.matchSites), integer(label, match[2] ?? match[1], LIMITS.matchSites)];
+  const pair: [number, number] = [integer(label, match[1], limits), integer(label, match[2] ?? match[1], limits)];
   if (pair[0] > pair[1]) invalid(label, text.trim(), 'the range is empty (low end above high end)');
   return pair;
 }
+
+export const readSites = (text: string) => integerRange(STM_FIELD_NAMES.sites, text, LIMITS.matchSites);

@@ -30,9 +30,11 @@ export interface ExpansionFields {
   structures: string;
   pairShells: string;
   tripletShells: string;
+  /** The input that sets the range of predicted sites (named when there are too many patterns). */
+  predictSites: string;
 }
 
-export const CLI_FIELDS: ExpansionFields = { structures: 'structures', pairShells: '--pair-shells', tripletShells: '--triplet-shells' };
+export const CLI_FIELDS: ExpansionFields = { structures: 'structures', pairShells: '--pair-shells', tripletShells: '--triplet-shells', predictSites: '--predict-sites' };
 
 export interface ExpansionOptions {
   pairShells?: number;
@@ -41,6 +43,8 @@ export interface ExpansionOptions {
   predict?: Omit<PredictOptions, 'onProgress'>;
   /** Most suggestions. */
   suggestions?: number;
+  /** Most patterns predicted; past it the range is refused naming fields.predictSites. Default: no limit. */
+  maxPredictions?: number;
   onProgress?: PredictOptions['onProgress'];
   fields?: ExpansionFields;
 }
@@ -174,7 +178,12 @@ export function expandEnergies(structures: readonly NamedTrainingStructure[], op
   structures.forEach((s, i) => trainingIndex.set(canonicalForm(s.pattern), i));
   const predictions: PredictedPoint[] = [];
   if (options.predict) {
+    const most = options.maxPredictions ?? Infinity;
     for (const p of predictStructures(fit, { ...options.predict, onProgress: options.onProgress })) {
+      if (predictions.length >= most) {
+        const [low, high] = options.predict.sites;
+        invalid(fields.predictSites, low === high ? `${low}` : `${low}-${high}`, `more than ${most} patterns in this range; narrow the sites or holes, or keep only isolated holes`);
+      }
       const s = p.structure;
       const point: PredictedPoint = {
         sites: s.sites, holes: s.holes, eta: s.eta, pattern: s.pattern, energy: p.energy, energyPerSite: p.energyPerSite,

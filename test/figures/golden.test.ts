@@ -1,5 +1,5 @@
 /**
- * Golden SVG files of the four sheet figures on three presets, and of the η–δ map of the named sheets, in both looks (numbers rounded to 2 decimals, ids
+ * Golden SVG files of the four sheet figures on three presets, of the η–δ map of the named sheets and of the DEMO energies' energy–η figure, in both looks (numbers rounded to 2 decimals, ids
  * renumbered): regression guards, and a visual gallery — open test/figures/golden/*.svg in a browser.
  */
 import { describe, it } from 'vitest';
@@ -11,7 +11,8 @@ import { sheetFigure } from '../../src/figures/sheet.ts';
 import { zoneFigure } from '../../src/figures/zone.ts';
 import type { FigureStyle } from '../../src/figures/types.ts';
 import { etaDeltaFigure } from '../../src/figures/etaDelta.ts';
-import { PARAMS, document, matchesGolden, preset, presetEtaDelta } from './helpers.ts';
+import { energyHullFigure } from '../../src/figures/energyHull.ts';
+import { PARAMS, demoEnergyHull, document, matchesGolden, preset, presetEtaDelta } from './helpers.ts';
 
 describe('figure golden files', () => {
   for (const name of ['alpha', 'honeycomb', 'beta12']) {
@@ -30,6 +31,10 @@ describe('figure golden files', () => {
     const withState = prepareSheet({ label: 'alpha', pattern: sheet.pattern }, { bondCutoff: PARAMS.cutoff, repeats: [2, 2], state });
     matchesGolden('sheet-alpha-state-publication', serializeFigure(sheetFigure(withState, { document, style: 'publication', idPrefix: 'golden' })));
   });
+  const energyHull = demoEnergyHull();
+  for (const style of ['screen', 'publication'] as FigureStyle[]) {
+    it(`energy-hull DEMO ${style}`, () => matchesGolden(`energy-hull-demo-${style}`, serializeFigure(energyHullFigure(energyHull, { document, style, idPrefix: 'golden' }))));
+  }
   const etaDelta = presetEtaDelta();
   for (const style of ['screen', 'publication'] as FigureStyle[]) {
     it(`eta-delta presets ${style}`, () => matchesGolden(`eta-delta-presets-${style}`, serializeFigure(etaDeltaFigure(etaDelta, { document, style, idPrefix: 'golden' }))));

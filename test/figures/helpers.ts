@@ -7,7 +7,10 @@ import { prepareEtaDelta, prepareSheet, prepareSpectra } from '../../src/figures
 import { headlessDocument } from '../../src/figures/headless.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
 import { findParameterPreset, type ParameterSet } from '../../src/tb/params.ts';
-import type { EtaDeltaData, SheetData, SpectraData } from '../../src/figures/types.ts';
+import type { EnergyHullData, EtaDeltaData, SheetData, SpectraData } from '../../src/figures/types.ts';
+import { expandEnergies } from '../../src/expansion/expand.ts';
+import { prepareEnergyHull } from '../../src/figures/prepareEnergyHull.ts';
+import { parseEnergiesText } from '../../src/io/energiesFile.ts';
 import { SHEET_PRESETS } from '../../src/lattice/presets.ts';
 import { dopingMap } from '../../src/substrate/dopingMap.ts';
 import { SUBSTRATES } from '../../src/substrate/substrates.ts';
@@ -47,4 +50,10 @@ export function matchesGolden(name: string, actual: string): void {
 export function presetEtaDelta(): EtaDeltaData {
   const map = dopingMap(SHEET_PRESETS.map((p) => ({ name: p.name, pattern: p.pattern })), { substrates: SUBSTRATES, parameters: PARAMS, mesh: 12 });
   return prepareEtaDelta(map, { label: 'alpha', eta: 1 / 9 });
+}
+
+/** The energy–η data of the DEMO energies with the isolated patterns up to 9 sites predicted (small and fast). */
+export function demoEnergyHull(): EnergyHullData {
+  const file = parseEnergiesText(readFileSync('presets/demo/hsl-energies.json', 'utf8'));
+  return prepareEnergyHull(expandEnergies(file.structures, { predict: { sites: [1, 9], holes: [0, 3], isolated: true } }), file);
 }

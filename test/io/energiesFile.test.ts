@@ -76,7 +76,7 @@ describe('expandEnergies refusals', () => {
   it('too few structures for the clusters asked, naming the count and the flags that ask for them', () => {
     expect(refusal(() => expandEnergies(six.slice(0, 5)))).toBe('invalid structures: 5 structures (5 clusters asked (empty, point, 3 pair shells) need at least 6 structures for a fit with leave-one-out cross-validation; add structures or lower --pair-shells)');
     expect(refusal(() => expandEnergies(six, { tripletShells: 1 }))).toMatch(/^invalid structures: 6 structures \(6 clusters asked \(empty, point, 3 pair shells, 1 triplet orbits\) need at least 7 .* or --triplet-shells\)/);
-    expect(refusal(() => expandEnergies(six.slice(0, 2), { pairShells: 0, fields: { structures: 'energies file', pairShells: 'pair shells', tripletShells: 'triplet shells' } })))
+    expect(refusal(() => expandEnergies(six.slice(0, 2), { pairShells: 0, fields: { structures: 'energies file', pairShells: 'pair shells', tripletShells: 'triplet shells', predictSites: 'sites' } })))
       .toMatch(/^invalid energies file: 2 structures .* lower pair shells\)$/);
   });
 

@@ -161,6 +161,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     tripletShells: flags['triplet-shells'] as number | undefined,
     suggestions: flags.suggest as number | undefined,
     predict,
+    maxPredictions: MAX_PREDICTIONS,
     onProgress: (fraction, done) => progress.update(done, fraction),
   });
   if (predict) progress.done();
