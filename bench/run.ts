@@ -4,6 +4,7 @@
  */
 import { benchEigh } from './eigh.ts';
 import { benchEnumerate } from './enumerate.ts';
+import { benchExpansion } from './expansion.ts';
 import { benchFigures } from './figures.ts';
 import { benchSubstrate } from './substrate.ts';
 import { benchTightBinding } from './tb.ts';
@@ -18,6 +19,7 @@ const suites: [string, () => Promise<void>][] = [
   ['mesh density (rank)', () => benchMeshDensity()],
   ['substrate', benchSubstrate],
   ['STM pictures', benchStm],
+  ['cluster expansion', benchExpansion],
 ];
 
 const only = process.argv[2];

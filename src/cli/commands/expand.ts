@@ -97,7 +97,8 @@ function resultJson(result: ExpansionResult, file: EnergiesFile): Record<string,
   };
 }
 
-const meV = (eV: number) => (Number.isFinite(eV) ? `${(1000 * eV).toFixed(2)} meV` : 'none');
+/** meV with two decimals; rounding never shows "-0.00". */
+const meV = (eV: number) => (Number.isFinite(eV) ? `${(Math.abs(eV) < 5e-6 ? 0 : 1000 * eV).toFixed(2)} meV` : 'none');
 const patternText = (pattern: Pattern) => `${JSON.stringify(hnfRows(pattern.supercell))} holes ${pattern.vacancies.map(([i, j]) => `(${i},${j})`).join(' ') || 'none'}`;
 
 function muText(point: HullPoint): string {
@@ -118,7 +119,7 @@ function resultText(result: ExpansionResult, file: EnergiesFile, range: string |
     const ranked = result.predictions.filter((p) => !p.computed && Number.isFinite(p.aboveFitHull)).sort((x, y) => x.aboveFitHull - y.aboveFitHull);
     lines.push(`predictions: ${result.predictions.length} patterns (${range}); the ${Math.min(TEXT_PREDICTIONS, ranked.length)} not computed closest to the fit's hull (all with --json):`);
     for (const p of ranked.slice(0, TEXT_PREDICTIONS)) {
-      lines.push(`  η ${p.eta.toFixed(4)}  ${p.energyPerSite.toFixed(5)} ± ${(1000 * p.uncertainty).toFixed(2)} meV/site, ${meV(p.aboveHull)}/site above your hull  N=${p.sites} ${p.phase ?? patternText(p.pattern)}`);
+      lines.push(`  η ${p.eta.toFixed(4)}  ${p.energyPerSite.toFixed(5)} ± ${(1000 * p.uncertainty).toFixed(2)} meV/site; above the fit's hull ${meV(p.aboveFitHull)}, above yours ${meV(p.aboveHull)}/site  N=${p.sites} ${p.phase ?? patternText(p.pattern)}`);
     }
     lines.push(`compute next (ground states of the fit first, then the least certain within ${WINDOW_CV_SCORES} × CV = ${meV(result.window)}/site of the fit's hull):`);
     if (result.suggestions.length === 0) lines.push('  nothing: no pattern of the range is a ground state of the fit or near the hull');
