@@ -8,7 +8,7 @@ import { EXPANSION_CAVEAT, expandEnergies, type ClusterResult, type ExpansionFie
 import { patternLabel, prepareEnergyHull } from '../figures/prepareEnergyHull.ts';
 import type { EnergyHullData } from '../figures/types.ts';
 import { parseEnergiesText } from '../io/energiesFile.ts';
-import { namingSource } from '../io/invalid.ts';
+import { namingSource } from '../validate/invalid.ts';
 import { ENERGIES_FIELD_NAMES } from './energiesFields.ts';
 import type { Pattern } from '../lattice/sheet.ts';
 

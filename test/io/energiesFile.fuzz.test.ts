@@ -8,7 +8,7 @@ import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
 import { canonicalForm } from '../../src/enumerate/canonical.ts';
 import { parseEnergiesObject, parseEnergiesText, type EnergiesFile } from '../../src/io/energiesFile.ts';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { mutate, mutationArbitrary, weird } from './fuzzValues.ts';
 
 let inputs = 0;

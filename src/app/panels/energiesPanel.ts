@@ -8,7 +8,7 @@
 import demoEnergies from '../../../presets/demo/hsl-energies.json' with { type: 'json' };
 import { energyHullFigure, energyHullPick, setEnergyHullSelected } from '../../figures/energyHull.ts';
 import type { FigureStyle } from '../../figures/types.ts';
-import { ValidationError } from '../../io/invalid.ts';
+import { ValidationError } from '../../validate/invalid.ts';
 import { hnfRows } from '../../lattice/pattern.ts';
 import type { App } from '../app.ts';
 import { readPairShells, readPredictHoles, readPredictSites, readTripletShells } from '../energiesFields.ts';
