@@ -220,12 +220,13 @@ export function expandEnergies(structures: readonly NamedTrainingStructure[], op
   const misfit = hullVertices.filter((v) => !ownFitVertices.has(v.index)).map((v) => label(v.index));
   const undercut = hullVertices.filter((v) => ownFitVertices.has(v.index) && !fitVertices.has(v.index)).map((v) => label(v.index));
 
+  // Without a CV score (a structure alone fixes a cluster) the fit's rms stands in for the window.
   const window = WINDOW_CV_SCORES * (Number.isFinite(fit.cvRms) ? fit.cvRms : fit.fitRms);
   const suggestions = suggestNext(predictions, { count: options.suggestions ?? EXPANSION_DEFAULTS.suggestions, window });
 
   const notes: string[] = [];
   for (const i of fit.soleSupport) {
-    notes.push(`structure ${i}${structures[i].name ? ` (${structures[i].name})` : ''} alone fixes a cluster (leverage 1): leaving it out leaves the fit undetermined, so there is no cross-validation score; add structures like it`);
+    notes.push(`structures[${i}]${structures[i].name ? ` (${structures[i].name})` : ''} alone fixes a cluster (leverage 1): leaving it out leaves the fit undetermined, so there is no cross-validation score; add structures like it`);
   }
   const outside = predictions.filter((p) => !Number.isFinite(p.aboveHull)).length;
   if (outside > 0) {

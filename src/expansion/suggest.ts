@@ -8,9 +8,10 @@
  *    calculations never saw: either one the training set misses, or a fault of the fit there; both need it
  *    computed. Deepest below the hull of the calculations first.
  * 2. Uncertain near the hull: of the other patterns not computed, those predicted at most `window` above the
- *    fit's hull (twice the CV score, the fit's own estimate of its error per site: within it a pattern may
- *    well be a ground state), least certain first — largest standard error s·√(x(XᵀX)⁻¹xᵀ): their correlations lie
- *    farthest from those already computed, so computing them teaches the fit most where it matters.
+ *    fit's hull (twice the CV score, or the fit rms when there is none: the fit's own estimate of its error per
+ *    site, so within it a pattern may well be a ground state), least certain first — largest standard error
+ *    s·√(x(XᵀX)⁻¹xᵀ): their correlations lie farthest from those already computed, so computing them teaches the fit
+ *    most where it matters.
  *
  * Patterns outside the η range of the calculations are extrapolations and never suggested. Of patterns the
  * clusters cannot tell apart (equal η, prediction and uncertainty: equal correlations), one is suggested.

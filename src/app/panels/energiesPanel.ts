@@ -117,7 +117,7 @@ export class EnergiesPanel {
     $<HTMLElement>(this.doc, '#energies-source').textContent = `${view.demo ? 'DEMO — invented energies, not a calculation. ' : ''}${view.title && !view.demo ? `${view.title} — ` : ''}${view.name}: ${view.structures} structures.`;
     $<HTMLElement>(this.doc, '#energy-hull-host').replaceChildren(energyHullFigure(view.figure, { document: this.doc }));
     $<HTMLElement>(this.doc, '#energies-summary').textContent =
-      `fit rms ${meV(view.fitRms)} meV/site, leave-one-out CV ${meV(view.cvRms)} meV/site; ${view.predicted.length} patterns predicted.${view.notes.length ? ` ${view.notes.join(' ')}` : ''}`;
+      `fit rms ${meV(view.fitRms)} meV/site, leave-one-out CV ${meV(view.cvRms)} meV/site; ${view.predicted.length} patterns predicted.${view.notes.map((note) => ` ${note[0].toUpperCase()}${note.slice(1)}.`).join('')}`;
     const clusters = view.clusters.map((c) => this.rowOf([c.name, String(c.perSite), `${signed(c.eci, 4)} ± ${signed(c.error, 4)}`]));
     $<HTMLTableSectionElement>(this.doc, '#energies-clusters tbody').replaceChildren(...clusters);
     const mu = (low: number, high: number) => `${Number.isFinite(low) ? signed(low, 3) : '−∞'} … ${Number.isFinite(high) ? signed(high, 3) : '+∞'}`;
