@@ -8,12 +8,12 @@
 import demoEnergies from '../../../presets/demo/hsl-energies.json' with { type: 'json' };
 import { energyHullFigure, energyHullPick, setEnergyHullSelected } from '../../figures/energyHull.ts';
 import type { FigureStyle } from '../../figures/types.ts';
-import { ValidationError } from '../../validate/invalid.ts';
 import { hnfRows } from '../../lattice/pattern.ts';
 import type { App } from '../app.ts';
 import { readPairShells, readPredictHoles, readPredictSites, readTripletShells } from '../energiesFields.ts';
 import type { ExpansionInput, ExpansionView, ShownPattern } from '../expansionJob.ts';
 import { Cancelled, WorkerLane } from '../worker/client.ts';
+import { readField } from './readField.ts';
 
 const $ = <T extends Element>(doc: Document, selector: string) => doc.querySelector<T>(selector)!;
 const meV = (eV: number) => (Number.isFinite(eV) ? (1000 * eV).toFixed(2) : '—');
@@ -50,19 +50,7 @@ export class EnergiesPanel {
   /** The form's values, or undefined with every bad field named and outlined (its text kept). */
   private readForm(): Omit<ExpansionInput, 'text' | 'name'> | undefined {
     const errors: string[] = [];
-    const read = <T>(name: string, reader: (text: string) => T): T | undefined => {
-      const input = this.field(name);
-      try {
-        const value = reader(input.value);
-        input.classList.remove('invalid');
-        return value;
-      } catch (error) {
-        if (!(error instanceof ValidationError)) throw error;
-        input.classList.add('invalid');
-        errors.push(error.message);
-        return undefined;
-      }
-    };
+    const read = <T>(name: string, reader: (text: string) => T): T | undefined => readField(this.field(name), reader, errors);
     const pairShells = read('pairShells', readPairShells);
     const tripletShells = read('tripletShells', readTripletShells);
     const sites = read('sites', readPredictSites);
