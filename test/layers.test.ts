@@ -18,6 +18,7 @@ const LAYERS: Record<string, number> = {
   tb: 3,
   substrate: 4,
   stm: 4,
+  expansion: 4,
   io: 5,
   figures: 6,
   cli: 7,
