@@ -3,11 +3,13 @@
  * zone, and the square grid of k-points over it on which constant-energy cuts are drawn.
  *
  * Everything is that of the one-site cell a1 = d·(1, 0), a2 = d·(1/2, √3/2) (src/lattice/triangular.ts) turned by
- * the unfolding's angle, so that a pattern (angle 0) unfolds on exactly the path `bands` takes for the one-atom
- * cell: M = b/2 at |M| = 2π/(√3·d), K a zone corner at |K| = 4π/(3d) (common practice).
+ * the unfolding's angle. The special points are fixed here, not left to a reduction's tie-breaking (a pattern is
+ * seldom symmetric under the turns that make the six M, or K, equivalent for the one-site lattice): M = (π/d)·(1, 1/√3),
+ * the middle of the zone edge at 30° (|M| = 2π/(√3·d)), and K = (4π/(3d), 0), the zone corner along a1 (common
+ * practice for the triangular lattice's zone).
  */
 import type { Vec2 } from '../lattice/sheet.ts';
-import { autoPath, type KPath } from './kspacePath.ts';
+import { pathThrough, type KPath } from './kspacePath.ts';
 import type { UnfoldingSheet } from './unfoldSheet.ts';
 import { brillouinZone, type BrillouinZone } from './zone.ts';
 
@@ -24,29 +26,30 @@ function oneSiteCell(bond: number): [Vec2, Vec2] {
   return [[bond, 0], [bond / 2, (bond * Math.sqrt(3)) / 2]];
 }
 
-/** The path Γ–M–K–Γ of the primitive lattice with `points` points, in the sheet's frame. */
+/** Γ, M, K (Å⁻¹) of the one-site lattice of spacing d with a1 along +x. */
+function specialPoints(bond: number): { label: string; k: Vec2 }[] {
+  return [
+    { label: 'Γ', k: [0, 0] },
+    { label: 'M', k: [Math.PI / bond, Math.PI / (Math.sqrt(3) * bond)] },
+    { label: 'K', k: [(4 * Math.PI) / (3 * bond), 0] },
+  ];
+}
+
+/** The path Γ–M–K–Γ of the primitive lattice with `points` points (at least 4), in the sheet's frame. */
 export function primitivePath(unfolding: Orientation, points: number): KPath {
-  const path = autoPath(oneSiteCell(unfolding.bond), points);
-  if (unfolding.angle === 0) return path;
   const rotate = turn(unfolding.angle);
-  const kpoints = new Float64Array(path.kpoints.length);
-  for (let p = 0; p < path.count; p++) {
-    const [x, y] = rotate([path.kpoints[2 * p], path.kpoints[2 * p + 1]]);
-    kpoints[2 * p] = x;
-    kpoints[2 * p + 1] = y;
-  }
-  return { ...path, kpoints };
+  const corners = specialPoints(unfolding.bond).map((p) => ({ label: p.label, k: rotate(p.k) }));
+  return pathThrough([...corners, corners[0]], points, 'hexagonal');
 }
 
 /** The primitive zone (hexagon corners counter-clockwise, b1, b2) and its special points, in the sheet's frame. */
 export function primitiveZone(unfolding: Orientation): BrillouinZone & { points: { label: string; k: Vec2 }[] } {
   const zone = brillouinZone(oneSiteCell(unfolding.bond));
-  const path = autoPath(oneSiteCell(unfolding.bond), 4);
   const rotate = turn(unfolding.angle);
   return {
     corners: zone.corners.map(rotate),
     reciprocal: [rotate(zone.reciprocal[0]), rotate(zone.reciprocal[1])],
-    points: path.labels.slice(0, -1).map((l) => ({ label: l.label, k: rotate([path.kpoints[2 * l.index], path.kpoints[2 * l.index + 1]]) })),
+    points: specialPoints(unfolding.bond).map((p) => ({ label: p.label, k: rotate(p.k) })),
   };
 }
 
