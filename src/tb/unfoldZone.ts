@@ -69,7 +69,8 @@ export interface ZoneGrid {
   pixel: Int32Array;
 }
 
-export function zoneGrid(unfolding: Orientation, side: number): ZoneGrid {
+/** `pad`: pixels whose centres lie up to this many pixels outside the zone count too (a picture clipped to the zone then has no empty rim). */
+export function zoneGrid(unfolding: Orientation, side: number, pad = 0): ZoneGrid {
   const { corners } = primitiveZone(unfolding);
   let radius = 0;
   for (const [x, y] of corners) radius = Math.max(radius, Math.hypot(x, y));
@@ -79,8 +80,9 @@ export function zoneGrid(unfolding: Orientation, side: number): ZoneGrid {
     for (let c = 0; c < corners.length; c++) {
       const [x0, y0] = corners[c];
       const [x1, y1] = corners[(c + 1) % corners.length];
-      // Left of every counter-clockwise edge (a hair of tolerance keeps the edges in).
-      if ((x1 - x0) * (ky - y0) - (y1 - y0) * (kx - x0) < -1e-12 * radius * radius) return false;
+      // Left of every counter-clockwise edge, less the pad (a hair of tolerance keeps the edges in).
+      const edge = Math.hypot(x1 - x0, y1 - y0);
+      if ((x1 - x0) * (ky - y0) - (y1 - y0) * (kx - x0) < -(pad * h + 1e-12 * radius) * edge) return false;
     }
     return true;
   };

@@ -5,11 +5,11 @@
 import { describe, expect, it } from 'vitest';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
 import { TightBindingModel } from '../../src/tb/model.ts';
-import { constantEnergyCut, spectralEnergies, spectralFunction, unfoldedRange } from '../../src/tb/spectral.ts';
+import { constantEnergyCut, gridSpread, pathSpread, spectralEnergies, spectralFunction, spectralImage, unfoldedRange } from '../../src/tb/spectral.ts';
 import { unfoldBands } from '../../src/tb/unfold.ts';
 import { patternUnfolding } from '../../src/tb/unfoldSheet.ts';
 import { primitivePath, primitiveZone, zoneGrid } from '../../src/tb/unfoldZone.ts';
-import { HARRISON_1980 } from './fixtures.ts';
+import { HARRISON_1980, withParameters } from './fixtures.ts';
 
 const beta12 = patternUnfolding(findSheetPreset('beta12')!.pattern);
 const model = new TightBindingModel(beta12.sheet, HARRISON_1980);
@@ -74,5 +74,68 @@ describe('zoneGrid(unfolding, side)', () => {
     const zone = primitiveZone({ bond: 1.69, angle: 0.3 });
     for (const [x, y] of zone.corners) expect(Math.max(Math.abs(x), Math.abs(y))).toBeLessThan(turned.reach);
     expect(Math.hypot(...zone.points.find((p) => p.label === 'K')!.k)).toBeCloseTo(4 * Math.PI / (3 * 1.69), 12);
+  });
+});
+
+describe('spectralImage(result, low, high, rows, width, spread)', () => {
+  it('is the mean of A over each energy bin: the midpoint value on fine bins, and Σ bins·bin = Σ_n W_n', () => {
+    // Midpoint rule (error O(bin²·A″)): an independent route through spectralFunction at the bin centres.
+    const [low, high] = unfoldedRange(result, 2);
+    const rows = 4000;
+    const bin = (high - low) / rows;
+    const image = spectralImage(result, low, high, rows, 0.2);
+    const centres = spectralFunction(result, spectralEnergies(low + bin / 2, high - bin / 2, rows), 0.2);
+    let worst = 0;
+    let peak = 0;
+    for (let i = 0; i < image.total.length; i++) {
+      worst = Math.max(worst, Math.abs(image.total[i] - centres.total[i]));
+      peak = Math.max(peak, centres.total[i]);
+    }
+    expect(worst / peak).toBeLessThan(1e-3);
+    const coarse = spectralImage(result, low, high, 37, 0.2, pathSpread(result));
+    for (let k = 0; k < result.count; k++) {
+      let sum = 0;
+      for (let r = 0; r < 37; r++) sum += coarse.total[k * 37 + r] * ((high - low) / 37);
+      expect(sum).toBeCloseTo((4 * result.atoms) / result.sites, 9);
+    }
+  });
+});
+
+describe('gridSpread(result, pixel, side) and pathSpread(result)', () => {
+  it('give the change of a band across one step: h·|∇E| of the analytic s band inside the zone', () => {
+    // E(k) = εs + 2V·Σ_j cos(k·a_j) (analytic nearest-neighbour s band), ∇E = −2V·Σ_j a_j·sin(k·a_j); the s-only
+    // set leaves the p states flat (invented values, analytic check only).
+    const sOnly = withParameters(HARRISON_1980, { hopping: { sp_sigma: 0, pp_sigma: 0, pp_pi: 0 } });
+    const one = patternUnfolding(findSheetPreset('delta6')!.pattern);
+    const side = 41;
+    const grid = zoneGrid(one, side);
+    const solved = unfoldBands(new TightBindingModel(one.sheet, sOnly), 1, grid.kpoints);
+    const spread = gridSpread(solved, grid.pixel, side);
+    const h = (2 * grid.reach) / side;
+    const v = sOnly.hopping.ss_sigma;
+    const a = [[1.69, 0], [0.845, 1.69 * Math.sqrt(3) / 2], [-0.845, 1.69 * Math.sqrt(3) / 2]];
+    let checked = 0;
+    for (let p = 0; p < side * side; p++) {
+      const i = p % side, j = (p - i) / side;
+      const k = grid.pixel[p];
+      if (k < 0 || [[i - 1, j], [i + 1, j], [i, j - 1], [i, j + 1]].some(([x, y]) => grid.pixel[y * side + x] < 0)) continue;
+      const [kx, ky] = [grid.kpoints[2 * k], grid.kpoints[2 * k + 1]];
+      // The lowest state is the s band where it lies well below the flat p states (also at the neighbours).
+      let gx = 0, gy = 0, e = sOnly.onsite.s;
+      for (const [x, y] of a) {
+        gx -= 2 * v * x * Math.sin(kx * x + ky * y);
+        gy -= 2 * v * y * Math.sin(kx * x + ky * y);
+        e += 2 * v * Math.cos(kx * x + ky * y);
+      }
+      if (!(e < sOnly.onsite.p - 6)) continue;
+      const exact = h * Math.hypot(gx, gy);
+      expect(Math.abs(spread[k * solved.bands] - exact)).toBeLessThan(0.02 * (h * 8 * Math.abs(v) * 1.69) + 1e-9);
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(300);
+    // On a path, the flat p states do not spread; the s band does.
+    const along = pathSpread(unfoldBands(new TightBindingModel(one.sheet, sOnly), 1, primitivePath(one, 30).kpoints));
+    expect(along[5 * 4 + 3]).toBeLessThan(1e-12);
+    expect(along[5 * 4]).toBeGreaterThan(0.1);
   });
 });
