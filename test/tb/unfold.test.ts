@@ -218,8 +218,28 @@ describe('the honeycomb (η = 1/3) unfolded in the triangular zone', () => {
     expect(Math.abs(pi[1].e - pi[0].e)).toBeLessThan(1e-9);
     expect(pi[0].e).toBeCloseTo(HARRISON_1980.onsite.p, 9);
     expect(pi[0].w + pi[1].w).toBeCloseTo(2 / 3, 10);
-    // Both branches visible (not a folded copy of weight 0).
-    expect(Math.min(pi[0].w, pi[1].w)).toBeGreaterThan(0.1);
+  });
+
+  it('shows the cone as the ARPES-like picture of two sublattices: one bright branch along Γ–M, both across it', () => {
+    // Two-site interference (analytic): a π state with sublattice amplitudes of equal size and relative phase φ has
+    // W = (1 ± cos φ)/3 at the primitive k. On the Γ–M line (a mirror line of the honeycomb) the two π states are even
+    // and odd: the even one takes all of 1 − η = 2/3, so the bright band runs straight through the crossing, the
+    // lower branch before it, the upper after (the other halves of the cone are dark: the "dark corridor" of
+    // graphite photoemission, Shirley et al., PRB 51, 13614 (1995), from memory). Across Γ–M, φ ≈ ±π/2: both
+    // branches carry about 1/3 and the crossing shows as an X.
+    const unit = Math.hypot(M[0], M[1]);
+    const along: [number, number] = [M[0] / unit, M[1] / unit];
+    const across: [number, number] = [-along[1], along[0]];
+    const at = (q: number, dir: [number, number]) => piStates(unfold(honeycomb, Float64Array.of((2 / 3) * M[0] + q * dir[0], (2 / 3) * M[1] + q * dir[1])), 0);
+    for (const q of [0.01, 0.05]) {
+      const before = at(-q, along);
+      const after = at(q, along);
+      expect(before[0].w).toBeCloseTo(2 / 3, 9);
+      expect(before[1].w).toBeCloseTo(0, 9);
+      expect(after[0].w).toBeCloseTo(0, 9);
+      expect(after[1].w).toBeCloseTo(2 / 3, 9);
+      for (const side of [at(-q, across), at(q, across)]) for (const state of side) expect(state.w).toBeGreaterThan(0.3);
+    }
   });
 
   it('opens linearly away from it, gap 3|t|·d·|q| (the Dirac cone, ħv = 3|t|d/2), and is gapped at the triangular K', () => {
