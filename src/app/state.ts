@@ -25,6 +25,7 @@ import { DEFAULT_SMEARING } from '../tb/fill.ts';
 import { MIN_BIAS } from '../stm/biasWindow.ts';
 import { STM_DEFAULTS, type StmMode } from '../stm/simulate.ts';
 import { DEFAULT_PARAMETERS, findParameterPreset, PARAMETER_PRESETS, type ParameterSet } from '../tb/params.ts';
+import { defaultUnfold, readUnfoldKeys, UNFOLD_KEYS, writeUnfoldKeys, type UnfoldState } from './unfoldState.ts';
 
 /** Which sheet is shown: a named preset, a vacancy pattern (edited, picked, imported), or an explicit sheet. */
 export type SheetChoice =
@@ -90,6 +91,8 @@ export interface ViewState {
   search: SearchState;
   metal: MetalState;
   stm: StmState;
+  /** The Unfolded bands panel (unfoldState.ts: `cut-energy`, `unfold-part`). */
+  unfold: UnfoldState;
 }
 
 /** Bounds of the view's own fields (the CLI's, where the CLI has one). */
@@ -137,6 +140,7 @@ export function defaultState(): ViewState {
     search: defaultSearch(),
     metal: { name: DEFAULT_METAL, model: {} },
     stm: defaultStm(),
+    unfold: defaultUnfold(),
   };
 }
 
@@ -209,7 +213,7 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
   const state: ViewState = structuredClone(base);
   const errors: ValidationError[] = [];
   const params = new URLSearchParams(hash.replace(/^#/, ''));
-  const known = new Set(['sheet', 'params', 'doping', 'smearing', 'mesh', 'repeats', 'pick', 'label', 'sites', 'holes', 'eta', 'isolated', 'cell', 'tolerance', 'metal', ...Object.values(ALIGNMENT_KEYS), ...STM_KEYS]);
+  const known = new Set(['sheet', 'params', 'doping', 'smearing', 'mesh', 'repeats', 'pick', 'label', 'sites', 'holes', 'eta', 'isolated', 'cell', 'tolerance', 'metal', ...Object.values(ALIGNMENT_KEYS), ...STM_KEYS, ...UNFOLD_KEYS]);
   const attempt = (action: () => void) => {
     try {
       action();
@@ -280,6 +284,7 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
     if (text !== undefined) attempt(() => { state.metal.model[field] = numberField(key, text, low, high, false, false); });
   }
   readStmKeys(get, state.stm, attempt);
+  readUnfoldKeys(get, state.unfold, attempt);
   // d ≥ d0 across the two fields: the one given is dropped (the other kept).
   attempt(() => {
     try {
@@ -373,6 +378,7 @@ export function writeHash(state: ViewState): string {
     if (value !== undefined) out.set(key, String(value));
   }
   writeStmKeys(out, state.stm);
+  writeUnfoldKeys(out, state.unfold);
   // URLSearchParams writes spaces as '+'; keep the hash readable and exact with %20.
   return `#${out.toString().replace(/\+/g, '%20')}`;
 }
