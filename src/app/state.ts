@@ -8,7 +8,8 @@
  * Metal panel: `metal` (a substrate preset name), `sheet-work-function`, `dipole` (eV), `distance`, `d0` (Å) —
  * the alignment model's fields, absent when at their estimated defaults (the CLI's flag names) — and the STM
  * panel: `bias` (V, sample against tip), `tip-height` (Å), `tip-mode` (`current` | `height`), `match-sites` (N1-N2),
- * `match-top` (K). The measured picture is never put in the hash: it stays in the page that opened it.
+ * `match-top` (K). The measured picture is never put in the hash: it stays in the page that opened it. The
+ * Unfolded bands panel: `cut-energy`, `unfold-part` (unfoldState.ts).
  * Every field is validated like any input: a bad one is reported as `invalid URL <key>: <value> (<why>)` and
  * falls back to its default, the others are kept.
  */

@@ -8,6 +8,7 @@
  * starts from, must lie within the tolerance of a lattice point; the empty sites are the vacancies.
  * The pattern describes the same structure up to a rigid rotation (a1 onto the x axis), a translation (the
  * starting atom onto the origin) and a common shift of the heights to zero.
+ * `triangularSites` is that recognition alone, in the sheet's own frame and for any heights (unfolding uses it).
  * Limitation: when no two atoms are nearest neighbours of the lattice they sit on, e is longer than that
  * lattice's spacing; the result is then a coarser triangular lattice when the atoms fit one, or undefined.
  */
