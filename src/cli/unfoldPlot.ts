@@ -8,7 +8,6 @@ import { CUT_PIXELS, prepareCut, prepareUnfolded, solveUnfolding } from '../figu
 import type { FigureOptions, SpectralPart } from '../figures/types.ts';
 import { unfoldedFigure } from '../figures/unfolded.ts';
 import { fill } from '../tb/fill.ts';
-import { TightBindingModel } from '../tb/model.ts';
 import type { ParameterSet } from '../tb/params.ts';
 import { unfoldedRange } from '../tb/spectral.ts';
 import { unfoldingOf } from './commands/unfold.ts';
@@ -17,7 +16,7 @@ import type { CliIo } from './io.ts';
 import { buildModel, meshChoiceOf, meshWork } from './parameters.ts';
 import { ProgressLine } from './progress.ts';
 import type { SheetArgument } from './sheetArgument.ts';
-import { guardSolve, VECTORS_COST_RATIO } from './workEstimate.ts';
+import { guardSolve, vectorsFactor } from './workEstimate.ts';
 
 /** The flags only these two figures take. */
 export const UNFOLD_PLOT_FLAGS: Record<string, FlagSpec> = {
@@ -43,11 +42,12 @@ export function drawUnfoldFigure(
   const pathPoints = figure === 'unfolded' ? (flags.points as number | undefined) ?? 300 : 4;
   const cutPixels = figure === 'cut' ? (flags['cut-points'] as number | undefined) ?? CUT_PIXELS : 0;
   const work = meshWork(flags)(unfolding.sheet);
-  buildModel({ label: source.label, sheet: unfolding.sheet }, params, io, work);
-  if (figure === 'unfolded') guardSolve(unfolding.sheet, '--points', pathPoints, (p) => VECTORS_COST_RATIO * p);
-  else guardSolve(unfolding.sheet, '--cut-points', cutPixels, (side) => 0.38 * side * side * VECTORS_COST_RATIO);
+  const model = buildModel({ label: source.label, sheet: unfolding.sheet }, params, io, work);
+  const factor = vectorsFactor(unfolding.sheet);
+  if (figure === 'unfolded') guardSolve(unfolding.sheet, '--points', pathPoints, (p) => factor * p);
+  else guardSolve(unfolding.sheet, '--cut-points', cutPixels, (side) => 0.38 * side * side * factor);
   const smearing = (flags.smearing as number | undefined) ?? DEFAULT_WIDTH;
-  const fermi = fill(new TightBindingModel(unfolding.sheet, params), {
+  const fermi = fill(model, {
     doping: flags.doping as number | undefined, mesh: meshChoiceOf(flags, unfolding.sheet).mesh, smearing,
   }).fermi;
   const progress = new ProgressLine(io.err, 'k-points');

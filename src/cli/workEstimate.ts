@@ -15,14 +15,20 @@ export const MAX_ESTIMATED_SECONDS = 3600;
 /** Seconds per (matrix size)³ for eigenvalues only, and with eigenvectors (bench/eigh.ts, rounded up). */
 const EIGENVALUES_PER_CUBE = 1.5e-9;
 const EIGENVECTORS_PER_CUBE = 5e-9;
-/** How much more a planar sheet's blocks cost with eigenvectors than without (for jobs that need them). */
-export const VECTORS_COST_RATIO = EIGENVECTORS_PER_CUBE / EIGENVALUES_PER_CUBE;
 
 /** Estimated seconds to solve `kpoints` k-points of a sheet (planar: σ and π blocks, eigenvalues only). */
 export function estimatedSeconds(sheet: Sheet, kpoints: number): number {
   const n = sheet.atoms.length;
   const perK = isPlanar(sheet) ? EIGENVALUES_PER_CUBE * ((3 * n) ** 3 + n ** 3) : EIGENVECTORS_PER_CUBE * (4 * n) ** 3;
   return perK * kpoints;
+}
+
+/**
+ * How many times estimatedSeconds a job with eigenvectors costs: planar sheets are estimated without them (the σ/π
+ * blocks need none for bands and fills), buckled ones with them already.
+ */
+export function vectorsFactor(sheet: Sheet): number {
+  return isPlanar(sheet) ? EIGENVECTORS_PER_CUBE / EIGENVALUES_PER_CUBE : 1;
 }
 
 /**

@@ -134,3 +134,25 @@ describe('lacuna unfold', () => {
     await refused(['unfold', 'alpha', '--kpoints', 'k.json'], /^invalid kpoints\[0\]\[1\]: "y" \(not a finite number; in the k-points file "k.json"\)/, { 'k.json': '{"kpoints": [[0, "y"]]}' });
   });
 });
+
+describe('lacuna plot --figure unfolded | cut', () => {
+  it('draws both pictures with E_F from `fill`, the part and the cut energy on the svg', async () => {
+    const fill = JSON.parse((await cli(['fill', 'alpha', '--json'])).stdout);
+    const unfolded = await json(['plot', 'alpha', '--figure', 'unfolded', '--points', '40', '--part', 'sigma', '--svg', 'u.svg', '--json']);
+    expect(unfolded.document).toMatchObject({ figure: 'unfolded', fermi: fill.fermi, sheet: 'alpha', parameters: 'harrison1980' });
+    const svg = String(unfolded.files.get('u.svg'));
+    expect(svg).toMatch(/data-figure="unfolded"/);
+    expect(svg).toMatch(/data-part="sigma"/);
+    expect(svg).toMatch(/data:image\/png;base64,/);
+    const cut = await json(['plot', 'alpha', '--figure', 'cut', '--cut-points', '15', '--cut-energy', '-0.5', '--svg', 'c.svg', '--json']);
+    expect(cut.document.fermi).toBe(fill.fermi);
+    expect(String(cut.files.get('c.svg'))).toContain(`data-cut-energy="${fill.fermi - 0.5}"`);
+  });
+
+  it('refuses the unfolding flags with other figures, --points with the cut, and a sheet off the lattice', async () => {
+    await refused(['plot', 'alpha', '--figure', 'bands', '--cut-energy', '1', '--svg', 'b.svg'], /^invalid --cut-energy: "1" \(only for --figure cut\)/);
+    await refused(['plot', 'alpha', '--figure', 'bands', '--part', 'pi', '--svg', 'b.svg'], /^invalid --part: "pi" \(only for --figure unfolded or cut\)/);
+    await refused(['plot', 'alpha', '--figure', 'cut', '--points', '50', '--svg', 'c.svg'], /^invalid --points: "50" \(not used by the cut figure/);
+    await refused(['plot', '{"cell": [[2, 0], [0, 2]], "atoms": [[0, 0]]}', '--figure', 'unfolded', '--svg', 'u.svg'], /^invalid SHEET: "inline JSON" \(its atoms do not sit/);
+  });
+});

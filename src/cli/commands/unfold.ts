@@ -18,7 +18,7 @@ import { checkKpointFlags, KPOINTS_FLAGS, labelPlaces, pathJson, readKpoints, ro
 import { buildModel, meshChoiceOf, meshJson, meshWork, resolveParameters } from '../parameters.ts';
 import { ProgressLine } from '../progress.ts';
 import { resolveSheet, type SheetArgument } from '../sheetArgument.ts';
-import { estimatedSeconds, guardSolve, VECTORS_COST_RATIO } from '../workEstimate.ts';
+import { estimatedSeconds, guardSolve, vectorsFactor } from '../workEstimate.ts';
 
 /** Energies on the spectral grid, pixels per side of the cut, and the Gaussian width, by default. */
 const DEFAULT_ENERGY_GRID = 401;
@@ -90,15 +90,16 @@ function run(argv: readonly string[], io: CliIo): number {
   const unfolding = unfoldingOf(sheet);
   const { kpoints, path } = readKpoints(flags, io, (points) => primitivePath(unfolding, points));
   const count = kpoints.length / 2;
+  const factor = vectorsFactor(unfolding.sheet);
   const model = buildModel({ label: sheet.label, sheet: unfolding.sheet }, params, io, {
-    flag: path ? '--points' : '--kpoints', value: count, kpoints: (p) => VECTORS_COST_RATIO * p,
+    flag: path ? '--points' : '--kpoints', value: count, kpoints: (p) => factor * p,
   });
   const cutSide = (flags['cut-points'] as number | undefined) ?? DEFAULT_CUT_POINTS;
   // About half the square's pixels are solved: the zone is ¾ of it, and ±k share one solution.
-  if (cutPath !== undefined) guardSolve(unfolding.sheet, '--cut-points', cutSide, (side) => 0.38 * side * side * VECTORS_COST_RATIO);
+  if (cutPath !== undefined) guardSolve(unfolding.sheet, '--cut-points', cutSide, (side) => 0.38 * side * side * factor);
 
   const progress = new ProgressLine(io.err, 'k-points', { machine: flags.progress === true, job: 'unfold' });
-  progress.estimate(VECTORS_COST_RATIO * estimatedSeconds(unfolding.sheet, count), `${model.atoms} atoms at ${count} k-points`, { atoms: model.atoms, kpoints: count });
+  progress.estimate(factor * estimatedSeconds(unfolding.sheet, count), `${model.atoms} atoms at ${count} k-points`, { atoms: model.atoms, kpoints: count });
   const result = unfoldBands(model, unfolding.sites, kpoints, { onProgress: (done, total) => progress.update(done, done / total) });
   progress.done();
 
