@@ -11,6 +11,7 @@ import { readLinear } from '../../figures/frame.ts';
 import type { FigureStyle } from '../../figures/types.ts';
 import { unfoldedFigure } from '../../figures/unfolded.ts';
 import { formatFraction } from '../../figures/format.ts';
+import { isPlanar } from '../../lattice/sheet.ts';
 import { patternUnfolding, sheetUnfolding, NOT_TRIANGULAR, type UnfoldingSheet } from '../../tb/unfoldSheet.ts';
 import { ValidationError } from '../../validate/invalid.ts';
 import type { App } from '../app.ts';
@@ -36,8 +37,8 @@ export class UnfoldPanel {
   readonly lane: WorkerLane;
   /** Time (ms) of the last drawing of the two figures on the page's thread (the browser test prints it). */
   renderMs = 0;
-  /** What the kept solution was solved for (identity of the resolved sheet and the parameter choice). */
-  private solvedFor: unknown[] = [];
+  /** What the kept solution was solved for: the sheet's label and structure and the parameter set, as text. */
+  private solvedFor = '';
   private solveGeneration = 0;
   private solving = false;
   private drawing = false;
@@ -67,7 +68,7 @@ export class UnfoldPanel {
     part.addEventListener('change', () => void app.edit({ unfold: { ...app.state.unfold, part: readPart(part.value, 'show') } }, 'none'));
     $<HTMLButtonElement>(doc, '#unfold-cancel').addEventListener('click', () => {
       this.lane.cancel();
-      this.solvedFor = [];
+      this.solvedFor = '';
       this.progress(undefined);
       this.readout('stopped: press “unfold” to compute again');
       this.showStart(true);
@@ -101,13 +102,17 @@ export class UnfoldPanel {
     const cut = $<HTMLInputElement>(this.doc, '#cut-energy');
     if (!cut.classList.contains('invalid') && this.doc.activeElement !== cut) cut.value = String(this.app.state.unfold.cut);
     $<HTMLSelectElement>(this.doc, '#unfold-part').value = this.app.state.unfold.part;
-    const wanted = [this.app.resolved, this.app.state.params];
-    if (wanted.some((x, i) => x !== this.solvedFor[i])) {
-      this.solvedFor = wanted;
+    if (this.sheetKey() !== this.solvedFor) {
       void this.solve(false);
       return;
     }
     this.requestDraw();
+  }
+
+  /** The sheet and parameters by content: a new mesh or an undo makes a new resolved sheet with the same atoms, which needs no new solve. */
+  private sheetKey(): string {
+    const r = this.app.resolved;
+    return JSON.stringify([r.label, r.cellPattern ?? r.sheet, parameterSet(this.app.state.params)]);
   }
 
   /** The resolved sheet on its triangular lattice (a pattern at its smallest cell, or an explicit sheet recognised). */
@@ -118,13 +123,13 @@ export class UnfoldPanel {
 
   private estimateSeconds(unfolding: UnfoldingSheet): number {
     const n = unfolding.sheet.atoms.length;
-    const planar = unfolding.sheet.atoms.every((a) => a[2] === unfolding.sheet.atoms[0][2]);
-    const perK = VECTORS_PER_CUBE * (planar ? (3 * n) ** 3 + n ** 3 : (4 * n) ** 3);
+    const perK = VECTORS_PER_CUBE * (isPlanar(unfolding.sheet) ? (3 * n) ** 3 + n ** 3 : (4 * n) ** 3);
     return perK * (PATH_POINTS + 0.38 * CUT_PIXELS * CUT_PIXELS);
   }
 
   private async solve(asked: boolean): Promise<void> {
     const generation = ++this.solveGeneration;
+    this.solvedFor = this.sheetKey();
     this.unfolding = this.unfoldingOfSheet();
     this.drawn = undefined;
     if (!this.unfolding) {
@@ -198,7 +203,7 @@ export class UnfoldPanel {
       } while (this.drawWanted && !this.solving);
     } catch (error) {
       if (error instanceof JobError && error.message === NO_UNFOLDING) {
-        this.solvedFor = [];
+        this.solvedFor = '';
         this.schedule();
       } else if (!(error instanceof Cancelled)) {
         this.app.notices.show(error instanceof Error ? error.message : String(error));
