@@ -10,6 +10,7 @@ import { benchSubstrate } from './substrate.ts';
 import { benchTightBinding } from './tb.ts';
 import { benchMeshDensity } from './meshDensity.ts';
 import { benchStm } from './stm.ts';
+import { benchUnfold } from './unfold.ts';
 
 const suites: [string, () => Promise<void>][] = [
   ['enumeration', benchEnumerate],
@@ -20,6 +21,7 @@ const suites: [string, () => Promise<void>][] = [
   ['substrate', benchSubstrate],
   ['STM pictures', benchStm],
   ['cluster expansion', benchExpansion],
+  ['unfolding', benchUnfold],
 ];
 
 const only = process.argv[2];

@@ -14,6 +14,7 @@ import { wireExports } from './panels/exportsPanel.ts';
 import { MetalPanel } from './panels/metalPanel.ts';
 import { StmPanel } from './panels/stmPanel.ts';
 import { EnergiesPanel } from './panels/energiesPanel.ts';
+import { UnfoldPanel } from './panels/unfoldPanel.ts';
 import { defaultState, readHash, type ViewState } from './state.ts';
 import { ValidationError } from '../validate/invalid.ts';
 
@@ -70,6 +71,7 @@ const stm = new StmPanel(app, document, () => new Worker(new URL('./worker/stmWo
 wireExports(app, document, metal, stm);
 await nextTask();
 const energies = new EnergiesPanel(app, document, () => new Worker(new URL('./worker/expansionWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-expansion' }));
+const unfold = new UnfoldPanel(app, document, () => new Worker(new URL('./worker/unfoldWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-unfold' }));
 
 if (opensDemo) {
   const note = $<HTMLElement>('#demo-note');
@@ -124,7 +126,7 @@ window.addEventListener('hashchange', () => {
 });
 
 // For the browser test and the benchmark it prints: the controller and its timings.
-(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal, stm, energies };
+(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal, stm, energies, unfold };
 
 void app.start().then(() => {
   if (opensDemo) void candidates.search();

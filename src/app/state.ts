@@ -8,7 +8,8 @@
  * Metal panel: `metal` (a substrate preset name), `sheet-work-function`, `dipole` (eV), `distance`, `d0` (Å) —
  * the alignment model's fields, absent when at their estimated defaults (the CLI's flag names) — and the STM
  * panel: `bias` (V, sample against tip), `tip-height` (Å), `tip-mode` (`current` | `height`), `match-sites` (N1-N2),
- * `match-top` (K). The measured picture is never put in the hash: it stays in the page that opened it.
+ * `match-top` (K). The measured picture is never put in the hash: it stays in the page that opened it. The
+ * Unfolded bands panel: `cut-energy`, `unfold-part` (unfoldState.ts).
  * Every field is validated like any input: a bad one is reported as `invalid URL <key>: <value> (<why>)` and
  * falls back to its default, the others are kept.
  */
@@ -25,6 +26,7 @@ import { DEFAULT_SMEARING } from '../tb/fill.ts';
 import { MIN_BIAS } from '../stm/biasWindow.ts';
 import { STM_DEFAULTS, type StmMode } from '../stm/simulate.ts';
 import { DEFAULT_PARAMETERS, findParameterPreset, PARAMETER_PRESETS, type ParameterSet } from '../tb/params.ts';
+import { defaultUnfold, readUnfoldKeys, UNFOLD_KEYS, writeUnfoldKeys, type UnfoldState } from './unfoldState.ts';
 
 /** Which sheet is shown: a named preset, a vacancy pattern (edited, picked, imported), or an explicit sheet. */
 export type SheetChoice =
@@ -90,6 +92,8 @@ export interface ViewState {
   search: SearchState;
   metal: MetalState;
   stm: StmState;
+  /** The Unfolded bands panel (unfoldState.ts: `cut-energy`, `unfold-part`). */
+  unfold: UnfoldState;
 }
 
 /** Bounds of the view's own fields (the CLI's, where the CLI has one). */
@@ -137,6 +141,7 @@ export function defaultState(): ViewState {
     search: defaultSearch(),
     metal: { name: DEFAULT_METAL, model: {} },
     stm: defaultStm(),
+    unfold: defaultUnfold(),
   };
 }
 
@@ -209,7 +214,7 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
   const state: ViewState = structuredClone(base);
   const errors: ValidationError[] = [];
   const params = new URLSearchParams(hash.replace(/^#/, ''));
-  const known = new Set(['sheet', 'params', 'doping', 'smearing', 'mesh', 'repeats', 'pick', 'label', 'sites', 'holes', 'eta', 'isolated', 'cell', 'tolerance', 'metal', ...Object.values(ALIGNMENT_KEYS), ...STM_KEYS]);
+  const known = new Set(['sheet', 'params', 'doping', 'smearing', 'mesh', 'repeats', 'pick', 'label', 'sites', 'holes', 'eta', 'isolated', 'cell', 'tolerance', 'metal', ...Object.values(ALIGNMENT_KEYS), ...STM_KEYS, ...UNFOLD_KEYS]);
   const attempt = (action: () => void) => {
     try {
       action();
@@ -280,6 +285,7 @@ export function readHash(hash: string, base: ViewState): { state: ViewState; err
     if (text !== undefined) attempt(() => { state.metal.model[field] = numberField(key, text, low, high, false, false); });
   }
   readStmKeys(get, state.stm, attempt);
+  readUnfoldKeys(get, state.unfold, attempt);
   // d ≥ d0 across the two fields: the one given is dropped (the other kept).
   attempt(() => {
     try {
@@ -373,6 +379,7 @@ export function writeHash(state: ViewState): string {
     if (value !== undefined) out.set(key, String(value));
   }
   writeStmKeys(out, state.stm);
+  writeUnfoldKeys(out, state.unfold);
   // URLSearchParams writes spaces as '+'; keep the hash readable and exact with %20.
   return `#${out.toString().replace(/\+/g, '%20')}`;
 }

@@ -22,11 +22,12 @@ import { scanCommand } from './commands/scan.ts';
 import { transferCommand } from './commands/transfer.ts';
 import { stmCommand } from './commands/stm.ts';
 import { matchCommand } from './commands/match.ts';
+import { unfoldCommand } from './commands/unfold.ts';
 import { PIPE_CLOSED_STATUS, PipeClosed, type CliIo, type Command } from './io.ts';
 
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
-  plotCommand, transferCommand, fitCommand, metalsCommand, stmCommand, matchCommand, expandCommand, presetsCommand, benchCommand,
+  unfoldCommand, plotCommand, transferCommand, fitCommand, metalsCommand, stmCommand, matchCommand, expandCommand, presetsCommand, benchCommand,
 ];
 
 function overview(): string {

@@ -13,11 +13,13 @@ export interface SheetArgument {
   label: string;
   sheet: Sheet;
   pattern?: Pattern;
+  /** Which form the sheet was given in (a preset is a pattern); an explicit sheet's `pattern` is recognised, turned. */
+  form?: 'explicit' | 'pattern';
 }
 
 export function resolveSheet(text: string, io: CliIo, field = 'SHEET'): SheetArgument {
   const preset = findSheetPreset(text);
-  if (preset) return { label: preset.name, sheet: patternToSheet(preset.pattern), pattern: preset.pattern };
+  if (preset) return { label: preset.name, sheet: patternToSheet(preset.pattern), pattern: preset.pattern, form: 'pattern' };
   if (text.trimStart().startsWith('{')) return { label: 'inline JSON', ...parseSheetText(text, field) };
   let content: string;
   try {

@@ -24,6 +24,14 @@ export function estimatedSeconds(sheet: Sheet, kpoints: number): number {
 }
 
 /**
+ * How many times estimatedSeconds a job with eigenvectors costs: planar sheets are estimated without them (the σ/π
+ * blocks need none for bands and fills), buckled ones with them already.
+ */
+export function vectorsFactor(sheet: Sheet): number {
+  return isPlanar(sheet) ? EIGENVECTORS_PER_CUBE / EIGENVALUES_PER_CUBE : 1;
+}
+
+/**
  * Refuses a job estimated past MAX_ESTIMATED_SECONDS, naming the flag that sets its size (`--mesh`, `--kspacing`,
  * `--points`). `kpointsOf(v)` gives the k-point count for a flag value v; `cheaper(v)` the next value to try when
  * suggesting one that fits (default: v/1.25 rounded down, for a mesh side or a point count).

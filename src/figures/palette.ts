@@ -5,10 +5,12 @@
  * deuteranopes keep, and differ by more than 25 in CIELAB lightness L*, which tritanopes and greyscale prints
  * keep (checked in test/figures/palette.test.ts). Mixed states of buckled sheets blend the two in CIELAB, so a
  * half-and-half state is a neutral grey-violet of middle lightness, never a third hue.
+ * Density (unfolded spectral weight): viridis (van der Walt & Smith's perceptually uniform scale, as in d3), dark at
+ * no weight, its lightness rising monotonically, readable in greyscale and with every type of colour vision.
  * Phase: a cyclic hue circle at constant CIELAB lightness and chroma (HCL), so no phase looks brighter than another
  * and −π meets π without a seam.
  */
-import { hcl, interpolateLab } from 'd3';
+import { hcl, interpolateLab, interpolateViridis, rgb } from 'd3';
 
 /** σ states (s, px, py). */
 export const SIGMA_COLOUR = '#1f5aa6';
@@ -52,3 +54,18 @@ export function phaseColour(phase: number): string {
 export const METAL_COLOURS = ['#20305f', '#a8326e', '#2f9c8f', '#d9c24a'] as const;
 /** Observations (experiment, not model output). */
 export const OBSERVED_COLOUR = INK;
+
+/** Colour of a density in [0, 1] (clipped): viridis. */
+export const densityColour = (t: number): string => interpolateViridis(Math.min(1, Math.max(0, t)));
+
+/** The density scale as 256 RGB triples (index = round(255·t)), for images: no colour parsing per pixel. */
+export function densityTable(): Uint8Array {
+  const table = new Uint8Array(3 * 256);
+  for (let i = 0; i < 256; i++) {
+    const c = rgb(interpolateViridis(i / 255));
+    table[3 * i] = c.r;
+    table[3 * i + 1] = c.g;
+    table[3 * i + 2] = c.b;
+  }
+  return table;
+}

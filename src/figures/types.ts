@@ -223,3 +223,53 @@ export interface EnergyHullData {
   cvRms: number;
   clusters: string;
 }
+
+/** Which part of an unfolded spectral function a figure shows: all orbitals, σ (s, px, py) or π (pz). */
+export type SpectralPart = 'total' | 'sigma' | 'pi';
+
+/**
+ * The unfolded bands along the primitive path Γ–M–K–Γ as a density image of A(k, E) (src/tb/spectral.ts), made in
+ * src/figures/prepareUnfold.ts (the page's worker, or the CLI).
+ */
+export interface UnfoldedData {
+  sheetLabel: string;
+  parameters: string;
+  atoms: number;
+  /** Lattice sites per cell and the lattice spacing (Å) of the triangular lattice unfolded onto. */
+  sites: number;
+  bond: number;
+  /** The primitive path: cumulative distance (Å⁻¹) per point, the special points. */
+  path: { count: number; distance: Float64Array; labels: { label: string; index: number }[] };
+  /** The image spans these energies (eV) in `rows` equal bins, the top row ending at `energyRange[1]`. */
+  energyRange: [number, number];
+  rows: number;
+  part: SpectralPart;
+  /** Gaussian width of A(k, E) (eV). */
+  smearing: number;
+  /** E_F (eV) of the sheet's spectrum, drawn as a line. */
+  fermi: number;
+  /** The A(k, E) at the top of the colour scale (states per eV per site): the largest of the total. */
+  scaleMax: number;
+  /** The image, an RGBA PNG data URL: one column per path point, one row per energy. */
+  png: string;
+}
+
+/** A constant-energy cut A(k, E0) over the primitive zone, as a density image (src/figures/prepareUnfold.ts). */
+export interface CutData {
+  sheetLabel: string;
+  parameters: string;
+  part: SpectralPart;
+  smearing: number;
+  fermi: number;
+  /** E0 (eV). */
+  energy: number;
+  /** The primitive zone (Å⁻¹, the sheet's frame): corners counter-clockwise and Γ, M, K. */
+  zone: { corners: Vec2[]; points: { label: string; k: Vec2 }[] };
+  /** The sheet's own (supercell) zone, drawn inside: the zone the bands fold into. */
+  cellZone: Vec2[];
+  /** The image covers kx, ky ∈ [−reach, reach] (Å⁻¹) in side × side pixels; outside the zone it is transparent. */
+  reach: number;
+  side: number;
+  scaleMax: number;
+  png: string;
+}

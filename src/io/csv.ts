@@ -37,3 +37,38 @@ export function dosCsv(dos: { energy: Float64Array; total: Float64Array; sigma: 
   for (let i = 0; i < dos.energy.length; i++) lines.push(`${dos.energy[i]},${dos.total[i]},${dos.sigma[i]},${dos.pi[i]}`);
   return `${lines.join('\n')}\n`;
 }
+
+/** A(k, E) on an energy grid at a list of k-points: k-major `count × energies`, total and σ part. */
+export interface SpectralTable {
+  count: number;
+  /** Cartesian k (Å⁻¹), interleaved; path distance (Å⁻¹) per point, for a path. */
+  kpoints: Float64Array;
+  distance?: Float64Array;
+  energies: Float64Array;
+  total: Float64Array;
+  sigma: Float64Array;
+}
+
+/** `k_index,kx,ky[,distance],energy_eV,total,sigma,pi`: one line per k-point and energy (states per eV per site). */
+export function spectralCsv(table: SpectralTable): string {
+  const lines = [['k_index', 'kx', 'ky', ...(table.distance ? ['distance'] : []), 'energy_eV', 'total', 'sigma', 'pi'].join(',')];
+  const points = table.energies.length;
+  for (let k = 0; k < table.count; k++) {
+    const head = `${k},${table.kpoints[2 * k]},${table.kpoints[2 * k + 1]}${table.distance ? `,${table.distance[k]}` : ''}`;
+    for (let e = 0; e < points; e++) {
+      const total = table.total[k * points + e];
+      const sigma = table.sigma[k * points + e];
+      lines.push(`${head},${table.energies[e]},${total},${sigma},${total - sigma}`);
+    }
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+/** `kx,ky,total,sigma,pi`: A(k, E0) at the k-points of a constant-energy cut (states per eV per site). */
+export function cutCsv(cut: { kpoints: Float64Array; total: Float64Array; sigma: Float64Array }): string {
+  const lines = ['kx,ky,total,sigma,pi'];
+  for (let k = 0; k < cut.total.length; k++) {
+    lines.push(`${cut.kpoints[2 * k]},${cut.kpoints[2 * k + 1]},${cut.total[k]},${cut.sigma[k]},${cut.total[k] - cut.sigma[k]}`);
+  }
+  return `${lines.join('\n')}\n`;
+}

@@ -1,9 +1,9 @@
 /**
- * A greyscale 8-bit PNG writer (PNG specification, ISO/IEC 15948 / W3C; zlib RFC 1950; deflate RFC 1951).
+ * An 8-bit PNG writer, greyscale or RGBA (PNG specification, ISO/IEC 15948 / W3C; zlib RFC 1950; deflate RFC 1951).
  * The pixel data goes into "stored" deflate blocks (no compression): a few lines of pure code, so the core and the
  * web view can write PNGs with no node:zlib and no dependency, at the price of files the size of the raw pixels
  * (64 KB for 256×256), which is fine for pictures of this size.
- * Layout: grey[row·width + col], row 0 at the top (PNG order).
+ * Layout: grey[row·width + col], rgba[4·(row·width + col) + channel], row 0 at the top (PNG order).
  */
 
 const CRC_TABLE = (() => {
@@ -67,14 +67,25 @@ function storedZlib(raw: Uint8Array): Uint8Array {
 
 /** A greyscale 8-bit PNG of width × height pixels. */
 export function encodeGreyPng(width: number, height: number, grey: Uint8Array): Uint8Array {
+  return encodePng(width, height, grey, 0, 1);
+}
+
+/** An 8-bit RGBA PNG (straight, not premultiplied, alpha) of width × height pixels. */
+export function encodeRgbaPng(width: number, height: number, rgba: Uint8Array): Uint8Array {
+  return encodePng(width, height, rgba, 6, 4);
+}
+
+/** PNG of 8-bit samples, `channels` per pixel, colour type 0 (grey) or 6 (RGBA). */
+function encodePng(width: number, height: number, samples: Uint8Array, colourType: 0 | 6, channels: number): Uint8Array {
   const header = new Uint8Array(13);
   const view = new DataView(header.buffer);
   view.setUint32(0, width);
   view.setUint32(4, height);
   header[8] = 8; // bit depth
-  header[9] = 0; // colour type: greyscale
-  const raw = new Uint8Array((width + 1) * height);
-  for (let row = 0; row < height; row++) raw.set(grey.subarray(row * width, (row + 1) * width), row * (width + 1) + 1); // filter 0
+  header[9] = colourType;
+  const line = width * channels;
+  const raw = new Uint8Array((line + 1) * height);
+  for (let row = 0; row < height; row++) raw.set(samples.subarray(row * line, (row + 1) * line), row * (line + 1) + 1); // filter 0
   const parts = [Uint8Array.of(0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a), chunk('IHDR', header), chunk('IDAT', storedZlib(raw)), chunk('IEND', new Uint8Array(0))];
   const out = new Uint8Array(parts.reduce((sum, p) => sum + p.length, 0));
   let at = 0;

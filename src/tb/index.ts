@@ -22,3 +22,7 @@ export * from './dosInterpolated.ts';
 export * from './zone.ts';
 export * from './blochState.ts';
 export * from './meshDensity.ts';
+export * from './unfold.ts';
+export * from './unfoldSheet.ts';
+export * from './unfoldZone.ts';
+export * from './spectral.ts';

@@ -101,6 +101,11 @@ export function specialPoints(cell: Sheet['cell']): { type: CellType; points: { 
  */
 export function autoPath(cell: Sheet['cell'], points: number): KPath {
   const { type, points: corners } = specialPoints(cell);
+  return pathThrough(corners, points, type);
+}
+
+/** A path through the given special points (in order) with `points` points in all, spread as in autoPath. */
+export function pathThrough(corners: { label: string; k: Vec2 }[], points: number, type: CellType): KPath {
   const segments = corners.length - 1;
   if (!Number.isInteger(points) || points < segments + 1) {
     invalid('points', points, `need an integer of at least ${segments + 1} for the ${type} path`);

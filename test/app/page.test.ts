@@ -447,6 +447,55 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     expect(errors).toEqual([]);
   });
 
+  it('the Unfolded bands panel: the pictures for the link\'s cut and part; a bad cut energy is named and kept; the doping slider only redraws', async () => {
+    const { page, errors } = await openPage('#sheet=honeycomb&cut-energy=0.5&unfold-part=pi');
+    await page.waitForSelector('svg[data-figure="unfolded"]', { state: 'attached', timeout: 30_000 });
+    await page.waitForSelector('svg[data-figure="cut"]', { state: 'attached' });
+    const cut = page.locator('svg[data-figure="cut"]');
+    expect(await page.locator('svg[data-figure="unfolded"]').getAttribute('data-part')).toBe('pi');
+    expect(await cut.getAttribute('data-part')).toBe('pi');
+    // The cut sits 0.5 eV above the E_F that the bands figure shows (the same value, at full precision).
+    const fermi = Number(await fermiOf(page));
+    expect(Number(await cut.getAttribute('data-cut-fermi'))).toBe(fermi);
+    expect(Number(await cut.getAttribute('data-cut-energy'))).toBeCloseTo(fermi + 0.5, 12);
+    // The honeycomb: 2 atoms on 3 sites (the boron layer of MgB2), weights adding up to 4(1 − η) = 8/3.
+    expect(await page.locator('#unfold-readout').innerText()).toMatch(/2 atoms on 3 sites \(η = 1\/3\).*2\.667/);
+
+    await page.fill('#cut-energy', 'abc');
+    await page.locator('#cut-energy').dispatchEvent('change');
+    expect(await page.locator('.notice').last().innerText()).toMatch(/invalid cut energy E − E_F: "abc" \(not a number\)/);
+    expect(await page.locator('#cut-energy').inputValue()).toBe('abc');
+    expect(page.url()).toContain('cut-energy=0.5');
+    await page.fill('#cut-energy', '-1');
+    await page.locator('#cut-energy').dispatchEvent('change');
+    await page.waitForFunction(() => {
+      const svg = document.querySelector('svg[data-figure="cut"]');
+      return svg !== null && Math.abs(Number(svg.getAttribute('data-cut-energy')) - Number(svg.getAttribute('data-cut-fermi')) + 1) < 1e-9;
+    });
+    expect(page.url()).toContain('cut-energy=-1');
+
+    const lane = () => page.evaluate(() => (window as unknown as { lacuna: { unfold: { lane: { jobsPosted: string[] } } } }).lacuna.unfold.lane.jobsPosted.slice());
+    const before = await lane();
+    await page.locator('#doping-range').evaluate((input: HTMLInputElement) => {
+      input.value = '0.4';
+      input.dispatchEvent(new Event('input', { bubbles: true }));
+    });
+    const moved = await fermiOf(page);
+    await page.waitForFunction((f) => document.querySelector('svg[data-figure="cut"]')?.getAttribute('data-cut-fermi') === f, moved);
+    expect((await lane()).slice(before.length).every((job) => job === 'draw')).toBe(true);
+    timings.unfoldDrawMs = Math.round(await page.evaluate(() => (window as unknown as { lacuna: { unfold: { renderMs: number } } }).lacuna.unfold.renderMs));
+    await shot(page, 'unfold');
+    expect(errors).toEqual([]);
+    await page.context().close();
+
+    // A sheet on no triangular lattice: said so, nothing drawn, the rest of the page as usual.
+    const square = encodeURIComponent(JSON.stringify({ cell: [[2.2, 0], [0, 2.2]], atoms: [[0, 0]] }));
+    const other = await openPage(`#sheet=${square}`);
+    await other.page.waitForFunction(() => /do not sit on the sites of one triangular lattice/.test(document.querySelector('#unfold-readout')?.textContent ?? ''));
+    expect(await other.page.locator('svg[data-figure="unfolded"]').count()).toBe(0);
+    expect(other.errors).toEqual([]);
+  });
+
   it('computes a 48×48 DOS in the worker (benchmark figure)', async () => {
     const { page } = await openPage('#sheet=beta12&mesh=48');
     const seconds = await page.evaluate(() => (window as unknown as { lacuna: { app: { timings: { lastSpectraMs: number } } } }).lacuna.app.timings.lastSpectraMs / 1000);

@@ -34,7 +34,7 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     expect(state.doping).toBe(0);
     expect(state.mesh).toBeUndefined();
     expect(errors.map((e) => e.message)).toEqual([
-      'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance, metal, sheet-work-function, dipole, distance, d0, bias, tip-height, tip-mode, match-sites, match-top, match-metal)',
+      'invalid URL colour: "red" (unknown key; known: sheet, params, doping, smearing, mesh, repeats, pick, label, sites, holes, eta, isolated, cell, tolerance, metal, sheet-work-function, dipole, distance, d0, bias, tip-height, tip-mode, match-sites, match-top, match-metal, cut-energy, unfold-part)',
       'invalid URL doping: "abc" (not a number)',
       'invalid URL mesh: "0" (must be from 1 to 400)',
       'invalid URL sites: "9-3" (the range is empty (low end above high end))',
@@ -83,6 +83,23 @@ describe('readHash(hash, base) and writeHash(state)', () => {
     expect(errors).toEqual([]);
     expect(back).toEqual(state);
     expect(writeHash(readHash('#sheet=beta12', defaultState()).state)).toBe('#sheet=beta12');
+  });
+
+  it('round-trips the Unfolded bands panel\'s cut energy and part, and refuses bad ones by name (regression guard of our keys)', () => {
+    const state = defaultState();
+    state.sheet = { kind: 'preset', name: 'honeycomb' };
+    state.unfold = { cut: -0.25, part: 'sigma' };
+    const hash = writeHash(state);
+    expect(hash).toBe('#sheet=honeycomb&cut-energy=-0.25&unfold-part=sigma');
+    const { state: back, errors } = readHash(hash, defaultState());
+    expect(errors).toEqual([]);
+    expect(back).toEqual(state);
+    const bad = readHash('#sheet=honeycomb&cut-energy=99&unfold-part=d', defaultState());
+    expect(bad.errors.map((e) => e.message)).toEqual([
+      'invalid URL cut-energy: "99" (must lie in [-50, 50] eV from E_F)',
+      'invalid URL unfold-part: "d" (must be total, sigma, pi)',
+    ]);
+    expect(bad.state.unfold).toEqual({ cut: 0, part: 'total' });
   });
 
   it('refuses bad STM keys by name and keeps the others (zero bias: an empty window, as the CLI\'s --bias)', () => {

@@ -66,6 +66,7 @@ describe('CLI golden files', () => {
     await matchesGolden('match-alpha-ag111', ['match', 'm.png', '--pixel-size', '0.25', '--sites', '9-9', '--mesh', '12', '--top', '3', '--substrate', 'ag111', '--json'], { 'm.png': png });
   });
   it('bands honeycomb --path auto --points 12 --json', () => matchesGolden('bands-honeycomb', ['bands', 'honeycomb', '--path', 'auto', '--points', '12', '--json']));
+  it('unfold beta12 --path auto --points 12 --json', () => matchesGolden('unfold-beta12', ['unfold', 'beta12', '--path', 'auto', '--points', '12', '--json']));
   it('enumerate --sites 1-6 --holes 0-6 --json', () => matchesGolden('enumerate-1-6', ['enumerate', '--sites', '1-6', '--holes', '0-6', '--json']));
   it('transfer beta12 --substrate ag111 --mesh 12 --json', () => matchesGolden('transfer-beta12-ag111', ['transfer', 'beta12', '--substrate', 'ag111', '--mesh', '12', '--json']));
   it('fit chi3 --substrate ag111 --max-sites 12 --json', () => matchesGolden('fit-chi3-ag111', ['fit', 'chi3', '--substrate', 'ag111', '--max-sites', '12', '--json']));

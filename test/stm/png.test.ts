@@ -1,6 +1,6 @@
 import { decode } from 'fast-png';
 import { describe, expect, it } from 'vitest';
-import { adler32, crc32, encodeGreyPng } from '../../src/io/png.ts';
+import { adler32, crc32, encodeGreyPng, encodeRgbaPng } from '../../src/io/png.ts';
 import { toGrey8 } from '../../src/stm/grey.ts';
 
 const ascii = (text: string) => new TextEncoder().encode(text);
@@ -17,6 +17,15 @@ describe('encodeGreyPng(width, height, grey)', () => {
       const png = decode(encodeGreyPng(w, h, grey));
       expect([png.width, png.height, png.depth, png.channels]).toEqual([w, h, 8, 1]);
       expect(Array.from(png.data)).toEqual(Array.from(grey));
+    }
+  });
+
+  it('writes RGBA files that fast-png reads back exactly (encodeRgbaPng)', () => {
+    for (const [w, h] of [[1, 1], [9, 4], [160, 120]]) {
+      const rgba = Uint8Array.from({ length: 4 * w * h }, (_, i) => (i * 53 + (i >> 5)) & 0xff);
+      const png = decode(encodeRgbaPng(w, h, rgba));
+      expect([png.width, png.height, png.depth, png.channels]).toEqual([w, h, 8, 4]);
+      expect(Array.from(png.data)).toEqual(Array.from(rgba));
     }
   });
 

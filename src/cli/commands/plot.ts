@@ -29,8 +29,9 @@ import { resolveSheet } from '../sheetArgument.ts';
 import { ALIGNMENT_FLAGS, SUBSTRATE_CAVEAT, alignmentOf } from '../substrateFlags.ts';
 import { BIAS_FLAG, HEIGHT_FLAG, MODE_FLAG, STM_CAVEAT } from '../stmFlags.ts';
 import { checkBias } from './stm.ts';
+import { checkUnfoldPlotFlags, drawUnfoldFigure, UNFOLD_PLOT_FLAGS } from '../unfoldPlot.ts';
 
-export const FIGURES = ['sheet', 'bands', 'dos', 'zone', 'eta-delta', 'stm'] as const;
+export const FIGURES = ['sheet', 'bands', 'dos', 'zone', 'eta-delta', 'stm', 'unfolded', 'cut'] as const;
 /** The STM figure's picture: 4 cells and 256 pixels per side, as `lacuna stm`'s defaults. */
 const STM_PICTURE = { cells: 4, pixels: 256 };
 const STM_ONLY = ['bias', 'height', 'mode'] as const;
@@ -43,7 +44,7 @@ export const PNG_SCALE = 2;
 
 const spec: CommandSpec = {
   name: 'plot',
-  summary: 'draw one figure of a sheet (sheet, bands, dos, zone, eta-delta: the η–δ map with the sheet marked, or stm: its simulated STM picture) in the publication look, as SVG and/or PNG',
+  summary: 'draw one figure of a sheet (sheet, bands, dos, zone, eta-delta: the η–δ map with the sheet marked, stm: its simulated STM picture, unfolded: its bands unfolded onto the triangular lattice, cut: a constant-energy cut of those) in the publication look, as SVG and/or PNG',
   positionals: [SHEET_ARGUMENT],
   flags: {
     figure: { kind: 'choice', values: FIGURES, placeholder: FIGURES.join('|'), help: 'which figure (required)' },
@@ -59,6 +60,7 @@ const spec: CommandSpec = {
     bias: { ...BIAS_FLAG, help: `${BIAS_FLAG.help}; only for --figure stm` },
     height: { ...HEIGHT_FLAG, help: `${HEIGHT_FLAG.help}; only for --figure stm` },
     mode: { ...MODE_FLAG, help: `${MODE_FLAG.help}; only for --figure stm` },
+    ...UNFOLD_PLOT_FLAGS,
     overwrite: OVERWRITE_FLAG,
     json: JSON_FLAG,
   },
@@ -96,6 +98,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     }
   }
 
+  checkUnfoldPlotFlags(figure, flags);
   const source = resolveSheet(positionals.SHEET, io);
   const params = resolveParameters(flags.params as string | undefined, io);
   const repeats = (flags.repeats as number | undefined) ?? 3;
@@ -106,6 +109,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const options = { document, style: 'publication' as const };
   let spectra: SpectraData | undefined;
   let svg: SVGSVGElement;
+  let unfoldFermi: number | undefined;
   if (figure === 'sheet') {
     svg = sheetFigure(sheetData, options);
   } else if (figure === 'eta-delta') {
@@ -127,6 +131,8 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
       mode: (flags.mode as StmMode | undefined) ?? STM_DEFAULTS.mode,
       doping: flags.doping as number | undefined, smearing: flags.smearing as number | undefined,
     }).figure, options);
+  } else if (figure === 'unfolded' || figure === 'cut') {
+    ({ svg, fermi: unfoldFermi } = drawUnfoldFigure(figure, source, params, flags, io, options));
   } else {
     // The smallest cell of a pattern (what the sheet figure's states refer to), after the work guard.
     buildModel({ label: source.label, sheet: sheetData.sheet }, params, io, meshWork(flags)(sheetData.sheet));
@@ -145,7 +151,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const text = svgText(svg);
   if (svgPath !== undefined) writeNamedFile(io, '--svg', svgPath, text);
   if (pngPath !== undefined) writeNamedFile(io, '--png', pngPath, await rasterise(text, PNG_SCALE));
-  const fermi = spectra ? spectra.fermi : null;
+  const fermi = spectra ? spectra.fermi : unfoldFermi ?? null;
   if (flags.json) {
     io.out(`${JSON.stringify({ svg: svgPath ?? null, png: pngPath ?? null, figure, fermi, sheet: source.label, parameters: params.name })}\n`);
     return 0;
@@ -155,6 +161,7 @@ async function run(argv: readonly string[], io: CliIo): Promise<number> {
     io.out(`${source.label}: ${figure} figure, parameters ${params.name}, δ = ${spectra.doping} e/atom, E_F ${spectra.fermi.toFixed(4)} eV (${spectra.mesh}×${spectra.mesh} mesh, Gaussian width ${spectra.smearing} eV)\n`);
     io.out(`${MODEL_CAVEAT}\n`);
   }
+  if (unfoldFermi !== undefined) io.out(`${source.label}: ${figure} figure, parameters ${params.name}, E_F ${unfoldFermi.toFixed(4)} eV\n${MODEL_CAVEAT}\n`);
   if (figure === 'eta-delta') io.out(`${SUBSTRATE_CAVEAT}\n`);
   if (figure === 'stm') io.out(`${STM_CAVEAT}\n`);
   return 0;
