@@ -1,8 +1,8 @@
 /**
  * Golden files of the CLI's JSON on the presets: regression guards for the contract output (shape and values),
  * not outside references — the outside checks live in the module tests. Numbers are rounded to 8 significant
- * digits so that floating-point noise does not count. A failing comparison writes `<name>.actual.json` beside
- * the golden file; set LACUNA_UPDATE_GOLDEN=1 to accept the new output. Locally a missing golden file is written
+ * digits, and those below 1e-12 in magnitude to 0, so that floating-point noise does not count. A failing
+ * comparison writes `<name>.actual.json` beside the golden file; set LACUNA_UPDATE_GOLDEN=1 to accept the new output. Locally a missing golden file is written
  * (review it before committing); under CI (process.env.CI set) a missing file fails and nothing is written.
  */
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
@@ -19,8 +19,11 @@ import { fakeIo } from './fakeIo.ts';
 
 const GOLDEN = join(dirname(fileURLToPath(import.meta.url)), 'golden');
 
+/** Below this magnitude a number is rounding noise of quantities of order one (weights, eV) and is written as 0. */
+const NOISE_FLOOR = 1e-12;
+
 function rounded(value: unknown): unknown {
-  if (typeof value === 'number') return value === 0 ? 0 : Number(value.toPrecision(8));
+  if (typeof value === 'number') return Math.abs(value) < NOISE_FLOOR ? 0 : Number(value.toPrecision(8));
   if (Array.isArray(value)) return value.map(rounded);
   if (value && typeof value === 'object') return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, rounded(v)]));
   return value;
