@@ -369,8 +369,8 @@ describe.skipIf(!available)('the web view in Chromium', () => {
 
     // A click on the user's β12 point (structure 5 of the file) shows that pattern.
     fermi = await fermiOf(page);
-    const box = (await page.locator(`${computed}[data-index="5"]`).boundingBox())!;
-    await page.mouse.click(box.x + box.width / 2, box.y + box.height / 2);
+    // A locator click: Playwright waits until the point stands still (other panels may still be settling the layout).
+    await page.locator(`${computed}[data-index="5"]`).click();
     await page.waitForFunction((old) => document.querySelector('svg[data-figure="bands"] [data-fermi]')?.getAttribute('data-fermi') !== old, fermi);
     expect(await page.locator('#summary').innerText()).toContain('β12');
 
