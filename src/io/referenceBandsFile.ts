@@ -58,9 +58,9 @@ function readLabels(path: unknown, count: number): { label: string; index: numbe
   });
 }
 
-/** Validates a parsed reference bands object; throws ValidationError naming the first bad field. */
-export function validateReferenceBands(value: unknown): ReferenceBands {
-  const root = requireRecord(value, 'reference bands');
+/** Validates a parsed reference bands object; throws ValidationError naming the first bad field (`origin`: the whole). */
+export function validateReferenceBands(value: unknown, origin = 'reference-bands'): ReferenceBands {
+  const root = requireRecord(value, origin);
   for (const key of Object.keys(root)) {
     if (!KNOWN_FIELDS.includes(key)) invalid(fieldPath('', key), root[key], `unknown field; a reference bands file has kpoints, energies and optionally fermi (also read: ${KNOWN_FIELDS.slice(3).join(', ')})`);
   }
@@ -104,7 +104,7 @@ export function validateReferenceBands(value: unknown): ReferenceBands {
 }
 
 /** Parses and validates the text of a reference bands file; `origin` names it in whole-file errors. */
-export function parseReferenceBandsText(text: string, origin = 'reference bands'): ReferenceBands {
+export function parseReferenceBandsText(text: string, origin = 'reference-bands'): ReferenceBands {
   if (text.length > REFERENCE_LIMITS.textBytes) invalid(origin, `${text.length} characters`, `larger than ${REFERENCE_LIMITS.textBytes} characters`);
   if (text.trim() === '') invalid(origin, text, 'empty file: expected {"kpoints": [[kx, ky]], "energies": [[e1, e2, …]]}');
   let value: unknown;
@@ -113,5 +113,5 @@ export function parseReferenceBandsText(text: string, origin = 'reference bands'
   } catch (error) {
     invalid(origin, text.slice(0, 40), `not JSON: ${(error as Error).message}`);
   }
-  return validateReferenceBands(value);
+  return validateReferenceBands(value, origin);
 }

@@ -177,7 +177,7 @@ function run(argv: readonly string[], io: CliIo): number {
   const files = (repeated.bands ?? []) as string[];
   if (files.length === 0) invalid('--bands', undefined, 'give the reference bands file of the sheet: --bands FILE');
   if (files.length !== sheetTexts.length) {
-    invalid('--bands', files.join(' '), `${files.length} files for ${sheetTexts.length} sheet${sheetTexts.length > 1 ? 's' : ''}: give one --bands per SHEET, in the same order`);
+    invalid('--bands', files.join(' '), `${files.length} file${files.length > 1 ? 's' : ''} for ${sheetTexts.length} sheet${sheetTexts.length > 1 ? 's' : ''}: give one --bands per SHEET, in the same order`);
   }
   const out = flags.out as string | undefined;
   checkOutputPath(io, '--out', out, flags.overwrite === true);

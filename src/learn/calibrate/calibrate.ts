@@ -282,7 +282,7 @@ function fitAtCutoff(options: CalibrateOptions, cutoff: number, progress: { done
     const result = levenbergMarquardt(problem, x0, { maxIterations: options.maxIterations });
     const weightedRms = Math.sqrt(result.cost / weightSum(sheets));
     starts.push({ name: start.name, rms: unweightedRms(problem, result.x), weightedRms, iterations: result.iterations, converged: result.converged, reason: result.reason });
-    if (!best || result.cost < best.cost) {
+    if (!best || result.cost < best.cost || !(best.cost >= 0)) {
       best = { x: result.x, cost: result.cost, start: start.name, iterations: result.iterations, converged: result.converged };
     }
     progress.done++;
@@ -331,7 +331,7 @@ export function calibrate(options: CalibrateOptions): CalibrationResult {
   for (const cutoff of cutoffs) {
     const candidate = fitAtCutoff(options, cutoff, progress);
     scan.push({ cutoff, rms: unweightedRms(candidate.problem, candidate.x), weightedRms: Math.sqrt(candidate.cost / candidate.weighted.sum) });
-    if (!fit || candidate.cost < fit.cost) fit = candidate;
+    if (!fit || candidate.cost < fit.cost || !(fit.cost >= 0)) fit = candidate;
   }
   return report(options, fit!, options.scanCutoff ? scan : undefined);
 }

@@ -33,7 +33,8 @@ export interface LeastSquaresOptions {
   onIteration?: (iteration: number, cost: number) => void;
 }
 
-export type StopReason = 'gradient' | 'step' | 'damping' | 'iterations' | 'exact';
+/** Why the iteration stopped; 'not-finite': S(x0) is not a finite number (the documented sentinel, x0 returned). */
+export type StopReason = 'gradient' | 'step' | 'damping' | 'iterations' | 'exact' | 'not-finite';
 
 export interface LeastSquaresResult {
   x: Float64Array;
@@ -41,7 +42,7 @@ export interface LeastSquaresResult {
   cost: number;
   /** Trial steps taken. */
   iterations: number;
-  /** True unless stopped by the iteration limit. */
+  /** True unless stopped by the iteration limit or a start that cannot be evaluated. */
   converged: boolean;
   reason: StopReason;
   residuals: Float64Array;
@@ -129,6 +130,7 @@ export function levenbergMarquardt(problem: LeastSquaresProblem, x0: Float64Arra
   let reason: StopReason = 'iterations';
   normalEquations(j, r, n, p, a, g);
 
+  if (!Number.isFinite(cost)) return { x, cost, iterations, converged: false, reason: 'not-finite', residuals: r, jacobian: j };
   while (iterations < maxIterations) {
     if (cost === 0) {
       reason = 'exact';

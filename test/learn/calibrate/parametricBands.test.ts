@@ -4,14 +4,8 @@ import { parameterVector } from '../../../src/learn/calibrate/modelParameters.ts
 import { computeBands } from '../../../src/tb/bands.ts';
 import { autoPath } from '../../../src/tb/kspacePath.ts';
 import { TightBindingModel } from '../../../src/tb/model.ts';
-import type { Sheet } from '../../../src/lattice/sheet.ts';
 import { HARRISON_1980, presetSheet } from '../../tb/fixtures.ts';
-
-/** The demo-like buckled sheet: β12 with one atom raised 0.25 Å (bonds of several lengths). */
-export const BUCKLED: Sheet = {
-  cell: [[5.07, 0], [0, 2.927187]],
-  atoms: [[0.1666667, 0.5, 0], [0.3333333, 0, 0.25], [0.5, 0.5, 0], [0.6666667, 0, 0], [0.8333333, 0.5, 0]],
-};
+import { BUCKLED } from './helpers.ts';
 
 describe('ParametricBands(sheet, kpoints, options).evaluate(values, energies, derivatives)', () => {
   for (const [name, sheet] of [['alpha (planar)', presetSheet('alpha')], ['buckled β12', BUCKLED]] as const) {
