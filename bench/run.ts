@@ -9,6 +9,7 @@ import { benchSubstrate } from './substrate.ts';
 import { benchTightBinding } from './tb.ts';
 import { benchMeshDensity } from './meshDensity.ts';
 import { benchStm } from './stm.ts';
+import { benchCalibrate } from './calibrate.ts';
 
 const suites: [string, () => Promise<void>][] = [
   ['enumeration', benchEnumerate],
@@ -18,6 +19,7 @@ const suites: [string, () => Promise<void>][] = [
   ['mesh density (rank)', () => benchMeshDensity()],
   ['substrate', benchSubstrate],
   ['STM pictures', benchStm],
+  ['calibrate', benchCalibrate],
 ];
 
 const only = process.argv[2];

@@ -80,6 +80,14 @@ export class ParametricBands {
   private readonly blocks: Float64Array;
   private readonly parts: Part[];
   private readonly order: Int32Array;
+  /** cos, sin of k·r of every bond at the current k. */
+  private readonly phaseCos: Float64Array;
+  private readonly phaseSin: Float64Array;
+  /** Per-state accumulators of the slopes of a part: 7 rows of length size (largest part), and one row of products. */
+  private readonly sums: Float64Array;
+  private readonly products: Float64Array;
+  /** One bond of each pair i→j, j→i (the pair gives complex-conjugate terms of ⟨n|∂H|n⟩: twice the real part of one). */
+  private readonly halfBonds: Int32Array;
 
   constructor(sheet: Sheet, kpoints: Float64Array, options: { cutoff: number; d0: number; block: BandBlock }) {
     this.atoms = sheet.atoms.length;
@@ -116,6 +124,18 @@ export class ParametricBands {
     else this.parts = [part(4, 0, n)];
     this.bands = this.parts.reduce((sum, p) => sum + p.size, 0);
     this.order = new Int32Array(this.bands);
+    this.phaseCos = new Float64Array(list.count);
+    this.phaseSin = new Float64Array(list.count);
+    const largest = Math.max(...this.parts.map((p) => p.size));
+    this.sums = new Float64Array(PARAMETERS * largest);
+    this.products = new Float64Array(largest);
+    const half: number[] = [];
+    for (let e = 0; e < list.count; e++) {
+      const from = list.from[e];
+      const to = list.to[e];
+      if (from < to || (from === to && (list.dx[e] > 0 || (list.dx[e] === 0 && list.dy[e] > 0)))) half.push(e);
+    }
+    this.halfBonds = Int32Array.from(half);
   }
 
   /**
@@ -137,11 +157,16 @@ export class ParametricBands {
     for (let k = 0; k < this.count; k++) {
       const kx = this.kpoints[2 * k];
       const ky = this.kpoints[2 * k + 1];
+      for (let e = 0; e < bonds; e++) {
+        const phase = kx * this.bondX[e] + ky * this.bondY[e];
+        this.phaseCos[e] = Math.cos(phase);
+        this.phaseSin[e] = Math.sin(phase);
+      }
       for (const p of this.parts) {
-        this.build(p, kx, ky, values);
+        this.build(p, values);
         if (derivatives) {
           p.solver.eigensystem(p.re, p.im, p.values, p.vecRe, p.vecIm);
-          this.slopes(p, kx, ky, values);
+          this.slopes(p);
         } else {
           p.solver.eigenvalues(p.re, p.im, p.values);
         }
@@ -150,7 +175,7 @@ export class ParametricBands {
     }
   }
 
-  private build(p: Part, kx: number, ky: number, values: Float64Array): void {
+  private build(p: Part, values: Float64Array): void {
     const { width, first, size, re, im } = p;
     re.fill(0);
     im.fill(0);
@@ -162,9 +187,8 @@ export class ParametricBands {
     }
     const blocks = this.blocks;
     for (let e = 0; e < this.scale.length; e++) {
-      const phase = kx * this.bondX[e] + ky * this.bondY[e];
-      const c = Math.cos(phase);
-      const sn = Math.sin(phase);
+      const c = this.phaseCos[e];
+      const sn = this.phaseSin[e];
       const rowBase = width * this.bondFrom[e];
       const colBase = width * this.bondTo[e];
       for (let a = 0; a < width; a++) {
@@ -179,57 +203,59 @@ export class ParametricBands {
     }
   }
 
-  /** ⟨n|∂H/∂θ|n⟩ of every state of a solved part into p.slopes. */
-  private slopes(p: Part, kx: number, ky: number, values: Float64Array): void {
+  /**
+   * ⟨n|∂H/∂θ|n⟩ of every state of a solved part into p.slopes. Loop order: bond, orbital pair, then the states m,
+   * which run along a row of the eigenvector matrix (contiguous); only the non-zero unit integrals are visited.
+   */
+  private slopes(p: Part): void {
     const { width, first, size, vecRe, vecIm, slopes } = p;
     const unit = this.unit;
-    for (let m = 0; m < size; m++) {
-      let sWeight = 0;
-      let pWeight = 0;
-      for (let r = 0; r < size; r++) {
-        const w = vecRe[r * size + m] ** 2 + vecIm[r * size + m] ** 2;
-        if (first + (r % width) === 0) sWeight += w;
-        else pWeight += w;
-      }
-      let dss = 0, dsp = 0, dpps = 0, dppp = 0, dexp = 0;
-      for (let e = 0; e < this.scale.length; e++) {
-        const phase = kx * this.bondX[e] + ky * this.bondY[e];
-        const c = Math.cos(phase);
-        const sn = Math.sin(phase);
-        const rowBase = width * this.bondFrom[e];
-        const colBase = width * this.bondTo[e];
-        const base = 64 * e;
-        let g0 = 0, g1 = 0, g2 = 0, g3 = 0;
-        for (let a = 0; a < width; a++) {
-          const xr = vecRe[(rowBase + a) * size + m];
-          const xi = vecIm[(rowBase + a) * size + m];
-          for (let b = 0; b < width; b++) {
-            const yr = vecRe[(colBase + b) * size + m];
-            const yi = vecIm[(colBase + b) * size + m];
+    const sums = this.sums;
+    sums.fill(0, 0, PARAMETERS * size);
+    // Rows 0, 1 of sums: the s and p weights of each state.
+    for (let r = 0; r < size; r++) {
+      const target = first + (r % width) === 0 ? 0 : size;
+      const row = r * size;
+      for (let m = 0; m < size; m++) sums[target + m] += vecRe[row + m] * vecRe[row + m] + vecIm[row + m] * vecIm[row + m];
+    }
+    const products = this.products;
+    for (const e of this.halfBonds) {
+      const c = this.phaseCos[e];
+      const sn = this.phaseSin[e];
+      // Twice: the reverse bond gives the complex conjugate term.
+      const scale = 2 * this.scale[e];
+      const log = this.logRatio[e];
+      const rowBase = width * this.bondFrom[e];
+      const colBase = width * this.bondTo[e];
+      for (let a = 0; a < width; a++) {
+        const x = (rowBase + a) * size;
+        for (let b = 0; b < width; b++) {
+          const y = (colBase + b) * size;
+          const ab = 4 * (first + a) + first + b;
+          let any = false;
+          for (let t = 0; t < 4; t++) if (unit[64 * e + 16 * t + ab] !== 0) any = true;
+          if (!any) continue;
+          for (let m = 0; m < size; m++) {
+            const xr = vecRe[x + m];
+            const xi = vecIm[x + m];
+            const yr = vecRe[y + m];
+            const yi = vecIm[y + m];
             // Re[conj(x)·y·exp(iφ)]
-            const x = (xr * yr + xi * yi) * c - (xr * yi - xi * yr) * sn;
-            const ab = base + 4 * (first + a) + first + b;
-            g0 += unit[ab] * x;
-            g1 += unit[ab + 16] * x;
-            g2 += unit[ab + 32] * x;
-            g3 += unit[ab + 48] * x;
+            products[m] = (xr * yr + xi * yi) * c - (xr * yi - xi * yr) * sn;
           }
+          for (let t = 0; t < 4; t++) {
+            const u = scale * unit[64 * e + 16 * t + ab];
+            if (u === 0) continue;
+            const row = (2 + t) * size;
+            for (let m = 0; m < size; m++) sums[row + m] += u * products[m];
+          }
+          const ux = log * this.blocks[16 * e + ab] * 2;
+          if (ux !== 0) for (let m = 0; m < size; m++) sums[6 * size + m] += ux * products[m];
         }
-        const scale = this.scale[e];
-        dss += scale * g0;
-        dsp += scale * g1;
-        dpps += scale * g2;
-        dppp += scale * g3;
-        dexp += this.logRatio[e] * scale * (values[2] * g0 + values[3] * g1 + values[4] * g2 + values[5] * g3);
       }
-      const row = m * PARAMETERS;
-      slopes[row] = sWeight;
-      slopes[row + 1] = pWeight;
-      slopes[row + 2] = dss;
-      slopes[row + 3] = dsp;
-      slopes[row + 4] = dpps;
-      slopes[row + 5] = dppp;
-      slopes[row + 6] = dexp;
+    }
+    for (let m = 0; m < size; m++) {
+      for (let t = 0; t < PARAMETERS; t++) slopes[m * PARAMETERS + t] = sums[t * size + m];
     }
   }
 
