@@ -9,6 +9,8 @@ export { setFermi, setRule } from './energyPlot.ts';
 export { stmPictureFigure, wrapWords } from './stmPicture.ts';
 export * from './prepareStm.ts';
 export { etaDeltaFigure, metalMarker, setMetalFocus, type EtaDeltaOptions } from './etaDelta.ts';
+export { calibrationFigure } from './calibration.ts';
+export * from './prepareCalibration.ts';
 export { svgText, serializeFigure } from './serialize.ts';
 export { SIGMA_COLOUR, PI_COLOUR, shareColour, phaseColour } from './palette.ts';
 export { FONT_FAMILY } from './look.ts';

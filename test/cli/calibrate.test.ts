@@ -5,6 +5,7 @@ import { presetSheet } from '../tb/fixtures.ts';
 import { BUCKLED, TRUTH, modelReference } from '../learn/calibrate/helpers.ts';
 import { cli, refused } from './runCommand.ts';
 import type { ReferenceBands } from '../../src/learn/calibrate/referenceBands.ts';
+import { DEMO_MAKER } from '../learn/calibrate/demoReference.ts';
 
 const DEMO = 'presets/demo/hsl-beta12-reference-bands.json';
 const DEMO_FILES = { [DEMO]: readFileSync(DEMO, 'utf8') };
@@ -51,9 +52,10 @@ describe('lacuna calibrate (DESIGN.md contract)', () => {
     const { code, stdout } = await cli(['calibrate', 'beta12', '--bands', DEMO, '--shift', '--free', 'cutoff,exponent', '--json'], DEMO_FILES);
     expect(code).toBe(0);
     const document = JSON.parse(stdout);
-    // The maker's values are in test/learn/calibrate/demoReference.ts (our own invented numbers: a regression guard).
-    expect(document.parameters.exponent).toBeCloseTo(5, 1);
-    expect(document.parameters.hopping.pp_sigma).toBeCloseTo(5.7, 1);
+    // The maker (test/learn/calibrate/demoReference.ts) is our own invented set: the fit must find it again.
+    expect(document.parameters.exponent).toBeCloseTo(DEMO_MAKER.exponent, 1);
+    for (const [name, value] of Object.entries(DEMO_MAKER.hopping)) expect(document.parameters.hopping[name]).toBeCloseTo(value, 1);
+    expect(document.parameters.onsite.s - document.parameters.onsite.p).toBeCloseTo(DEMO_MAKER.onsite.s - DEMO_MAKER.onsite.p, 1);
     expect(document.rms).toBeLessThan(0.03);
     expect(document.cutoff_scan.length).toBeGreaterThan(1);
   });

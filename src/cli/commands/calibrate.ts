@@ -18,6 +18,11 @@ import { JSON_FLAG, OVERWRITE_FLAG, PROGRESS_FLAG } from '../commonFlags.ts';
 import { resolveParameters } from '../parameters.ts';
 import { ProgressLine, readableSeconds } from '../progress.ts';
 import { resolveSheet } from '../sheetArgument.ts';
+import { calibrationFigure } from '../../figures/calibration.ts';
+import { prepareCalibration } from '../../figures/prepareCalibration.ts';
+import { svgText } from '../../figures/serialize.ts';
+import { rasterise } from '../raster.ts';
+import { PNG_SCALE } from './plot.ts';
 import { estimatedSeconds, MAX_ESTIMATED_SECONDS, MAX_MODEL_ATOMS } from '../workEstimate.ts';
 
 /** What every human-readable calibration says about itself. */
@@ -43,6 +48,8 @@ const spec: CommandSpec = {
     hold: { kind: 'text', placeholder: 'LIST', help: `keep at the first start's value: any of ${HOLDABLE.join(', ')}; comma-separated` },
     name: { kind: 'text', placeholder: 'NAME', help: 'name of the fitted set (default calibrated-<sheets>)' },
     out: { kind: 'text', placeholder: 'FILE', help: 'write the fitted parameter file' },
+    svg: { kind: 'text', placeholder: 'FILE', repeatable: true, help: 'draw the fitted bands against the reference as SVG (publication look); the i-th for the i-th SHEET' },
+    png: { kind: 'text', placeholder: 'FILE', repeatable: true, help: 'the same figure as PNG; the i-th for the i-th SHEET' },
     overwrite: OVERWRITE_FLAG,
     json: JSON_FLAG,
     progress: PROGRESS_FLAG,
@@ -148,7 +155,7 @@ const LABELS: Record<ModelParameter, string> = {
   s: 'εs', p: 'εp', ss_sigma: 'V_ssσ', sp_sigma: 'V_spσ', pp_sigma: 'V_ppσ', pp_pi: 'V_ppπ', exponent: 'exponent',
 };
 
-function textReport(result: CalibrationResult, out: string | undefined): string {
+function textReport(result: CalibrationResult, written: string[]): string {
   const lines: string[] = [];
   for (const s of result.sheets) {
     const fermi = s.fermi === null ? 'no E_F (equal weights)' : `E_F ${s.fermi.toFixed(3)} eV (${s.fermiFrom === 'file' ? 'from the file' : 'estimated by the electron count'})`;
@@ -166,12 +173,25 @@ function textReport(result: CalibrationResult, out: string | undefined): string 
   lines.push(`rms ${result.rms.toFixed(4)} eV, largest error ${result.maxError.toFixed(4)} eV over ${result.points} points; weighted rms ${result.weightedRms.toFixed(4)} eV (${result.weights.formula})`);
   lines.push(`uncertainties: standard, from the Jacobian at the minimum (s²(JᵀWJ)⁻¹)${result.converged ? '' : '; NOT CONVERGED: the iteration limit was reached'}`);
   lines.push(result.signConvention);
-  if (out !== undefined) lines.push(`wrote ${out}`);
+  for (const path of written) lines.push(`wrote ${path}`);
   lines.push(CALIBRATE_CAVEAT);
   return `${lines.join('\n')}\n`;
 }
 
-function run(argv: readonly string[], io: CliIo): number {
+/** The calibration figure of sheet i into the i-th --svg and --png files. */
+async function drawFigures(result: CalibrationResult, sheets: CalibrationSheet[], svgs: string[], pngs: string[], io: CliIo): Promise<void> {
+  // Loaded here: no other use of calibrate pays for the DOM.
+  const { headlessDocument } = await import('../../figures/headless.ts');
+  const document = headlessDocument();
+  for (let i = 0; i < sheets.length; i++) {
+    if (svgs[i] === undefined && pngs[i] === undefined) continue;
+    const text = svgText(calibrationFigure(prepareCalibration(result, i, sheets[i].reference), { document, style: 'publication' }));
+    if (svgs[i] !== undefined) writeNamedFile(io, '--svg', svgs[i], text);
+    if (pngs[i] !== undefined) writeNamedFile(io, '--png', pngs[i], await rasterise(text, PNG_SCALE));
+  }
+}
+
+async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const { positionals, flags, repeated } = parseArgs(spec, argv);
   const sheetTexts = (repeated.SHEET ?? [positionals.SHEET]) as string[];
   const files = (repeated.bands ?? []) as string[];
@@ -181,6 +201,12 @@ function run(argv: readonly string[], io: CliIo): number {
   }
   const out = flags.out as string | undefined;
   checkOutputPath(io, '--out', out, flags.overwrite === true);
+  const svgs = (repeated.svg ?? []) as string[];
+  const pngs = (repeated.png ?? []) as string[];
+  for (const [flag, list] of [['--svg', svgs], ['--png', pngs]] as const) {
+    if (list.length > sheetTexts.length) invalid(flag, list.join(' '), `${list.length} files for ${sheetTexts.length} sheet${sheetTexts.length > 1 ? 's' : ''}: at most one per SHEET`);
+    for (const path of list) checkOutputPath(io, flag, path, flags.overwrite === true);
+  }
   if (flags['equal-weights'] && flags['weight-width'] !== undefined) invalid('--weight-width', String(flags['weight-width']), 'give --weight-width or --equal-weights, not both');
   const free = commaList('--free', flags.free as string | undefined, ['exponent', 'cutoff'], {
     d0: 'd0 only says where the integrals are stated (any d0 with the V rescaled gives the same bands); set it in the start file (--params)',
@@ -232,7 +258,8 @@ function run(argv: readonly string[], io: CliIo): number {
     invalid('--bands', files.join(' '), `the fit left the limits of a parameter file (${error.message}): check which bands are matched (--model-bands, --reference-bands, --block) and --shift`);
   }
   if (out !== undefined) writeNamedFile(io, '--out', out, `${JSON.stringify(parameterFile(result.parameters), null, 2)}\n`);
-  io.out(flags.json ? `${JSON.stringify(jsonDocument(result, out))}\n` : textReport(result, out));
+  if (svgs.length > 0 || pngs.length > 0) await drawFigures(result, sheets, svgs, pngs, io);
+  io.out(flags.json ? `${JSON.stringify(jsonDocument(result, out))}\n` : textReport(result, [out, ...svgs, ...pngs].filter((p): p is string => p !== undefined)));
   return 0;
 }
 

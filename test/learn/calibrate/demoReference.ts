@@ -19,8 +19,8 @@ export const DEMO_REFERENCE_FILE = 'presets/demo/hsl-beta12-reference-bands.json
 export const DEMO_MAKER: ParameterSet = {
   name: 'demo-reference-maker',
   source: 'DEMO — invented numbers',
-  onsite: { s: -9.3, p: -3.9 },
-  hopping: { ss_sigma: -3.8, sp_sigma: 4.3, pp_sigma: 5.7, pp_pi: -1.75 },
+  onsite: { s: -6.1, p: -2.4 },
+  hopping: { ss_sigma: -2.1, sp_sigma: 2.7, pp_sigma: 3.5, pp_pi: -1.3 },
   d0: 1.69,
   exponent: 5,
   cutoff: 3.0,
