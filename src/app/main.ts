@@ -13,6 +13,7 @@ import { nextTask } from './panels/spectrumView.ts';
 import { wireExports } from './panels/exportsPanel.ts';
 import { MetalPanel } from './panels/metalPanel.ts';
 import { StmPanel } from './panels/stmPanel.ts';
+import { CalibratePanel } from './panels/calibratePanel.ts';
 import { defaultState, readHash, type ViewState } from './state.ts';
 import { ValidationError } from '../io/invalid.ts';
 
@@ -67,6 +68,8 @@ const metal = new MetalPanel(app, document, () => new Worker(new URL('./worker/s
 await nextTask();
 const stm = new StmPanel(app, document, () => new Worker(new URL('./worker/stmWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-stm' }));
 wireExports(app, document, metal, stm);
+await nextTask();
+const calibrate = new CalibratePanel(app, document, () => new Worker(new URL('./worker/calibrateWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-calibrate' }));
 
 if (opensDemo) {
   const note = $<HTMLElement>('#demo-note');
@@ -121,8 +124,9 @@ window.addEventListener('hashchange', () => {
 });
 
 // For the browser test and the benchmark it prints: the controller and its timings.
-(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal, stm };
+(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal, stm, calibrate };
 
 void app.start().then(() => {
   if (opensDemo) void candidates.search();
+  void calibrate.start();
 });
