@@ -24,11 +24,14 @@ export { RealSymmetricEigensolver } from './tb/eighReal.ts';
 export { timeEigenvalues } from './tb/eighBench.ts';
 // Metal substrates: coincidence fits and electron transfer.
 export * from './substrate/index.ts';
+// Parameters fitted to the user's own reference bands (calibrate).
+export * from './learn/calibrate/index.ts';
 // Input and output.
 export { ValidationError, invalid, fieldPath } from './io/invalid.ts';
 export * from './io/sheetFile.ts';
 export * from './io/sheetLimits.ts';
 export { parseKpointsText, parseKpointsObject } from './io/kpointsFile.ts';
+export { parseReferenceBandsText, validateReferenceBands, REFERENCE_LIMITS } from './io/referenceBandsFile.ts';
 export { sheetToCif } from './io/cif.ts';
 export { sheetToXyz } from './io/xyz.ts';
 export * from './io/sheetJson.ts';
