@@ -10,7 +10,8 @@ export default defineConfig({
     emptyOutDir: true,
     target: 'node20',
     minify: false,
-    lib: { entry: 'src/cli/main.ts', formats: ['es'], fileName: () => 'lacuna.js' },
+    // Two entries: the command line, and the shard thread that `rank` starts on each core (src/cli/threads.ts).
+    lib: { entry: { lacuna: 'src/cli/main.ts', shard: 'src/cli/shardWorker.ts' }, formats: ['es'], fileName: (_, name) => `${name}.js` },
     // resvg loads a native binary and linkedom is plain Node code: both stay in node_modules, not in the bundle.
     rollupOptions: { external: [...builtinModules, ...builtinModules.map((m) => `node:${m}`), '@resvg/resvg-js', 'linkedom'] },
   },

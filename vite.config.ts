@@ -3,11 +3,13 @@ import { defineConfig, type Plugin } from 'vitest/config';
 /**
  * The page's Content-Security-Policy, added to the built page only (the dev server injects its own client).
  * Everything comes from the page's own origin: no inline or evaluated script, workers from the same files;
- * figures rasterised to PNG go through blob: images.
+ * figures rasterised to PNG go through blob: images. 'wasm-unsafe-eval' lets the page compile the eigensolver's
+ * WebAssembly kernels (assembled in the page from our own source, src/linalg/wasmAssembler.ts); it allows no
+ * JavaScript eval.
  */
 const CONTENT_SECURITY_POLICY = [
   "default-src 'self'",
-  "script-src 'self'",
+  "script-src 'self' 'wasm-unsafe-eval'",
   "worker-src 'self'",
   "style-src 'self'",
   "img-src 'self' data: blob:",

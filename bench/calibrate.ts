@@ -9,7 +9,7 @@ import { calibrate, defaultStarts, matchBands, ParametricBands, parameterVector 
 import { patternToSheet } from '../src/lattice/pattern.ts';
 import { findSheetPreset } from '../src/lattice/presets.ts';
 import type { Sheet } from '../src/lattice/sheet.ts';
-import { xorshift32 } from '../src/tb/eighRandom.ts';
+import { xorshift32 } from '../src/linalg/eighRandom.ts';
 import { autoPath } from '../src/tb/kspacePath.ts';
 import type { ParameterSet } from '../src/tb/params.ts';
 import { best } from './best.ts';

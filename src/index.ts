@@ -15,19 +15,21 @@ export * from './lattice/separation.ts';
 export * from './lattice/recognise.ts';
 export * from './lattice/geometry.ts';
 export * from './lattice/holes.ts';
+export * from './lattice/sheetSymmetry.ts';
 export * from './lattice/presets.ts';
 // Vacancy-pattern enumeration.
 export * from './enumerate/index.ts';
-// Tight binding (includes the parameter-file parser).
+// Tight binding.
 export * from './tb/index.ts';
-export { RealSymmetricEigensolver } from './tb/eighReal.ts';
-export { timeEigenvalues } from './tb/eighBench.ts';
+export { RealSymmetricEigensolver } from './linalg/eighReal.ts';
+export { timeEigenvalues } from './linalg/eighBench.ts';
 // Metal substrates: coincidence fits and electron transfer.
 export * from './substrate/index.ts';
 // Parameters fitted to the user's own reference bands (calibrate).
 export * from './learn/calibrate/index.ts';
 // Input and output.
-export { ValidationError, invalid, fieldPath } from './io/invalid.ts';
+export { ValidationError, invalid, fieldPath } from './validate/invalid.ts';
+export { parseParameterFile } from './io/paramsFile.ts';
 export * from './io/sheetFile.ts';
 export * from './io/sheetLimits.ts';
 export { parseKpointsText, parseKpointsObject } from './io/kpointsFile.ts';
@@ -37,5 +39,6 @@ export { sheetToXyz } from './io/xyz.ts';
 export * from './io/sheetJson.ts';
 // STM pictures: simulation (Tersoff–Hamann), measured-picture analysis and matching; picture files.
 export * from './stm/index.ts';
-export { encodeGreyPng, toGrey8, crc32, adler32 } from './io/png.ts';
+export { encodeGreyPng, crc32, adler32 } from './io/png.ts';
+export { toGrey8 } from './stm/grey.ts';
 export { readPicture, MAX_PICTURE_PIXELS, MAX_PICTURE_SIDE, MIN_PICTURE_SIDE, type DecodedPicture } from './io/imageFile.ts';

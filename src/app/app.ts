@@ -8,7 +8,7 @@
  */
 import { prepareSheet } from '../figures/prepare.ts';
 import type { SelectedState, SheetData, SpectraData } from '../figures/types.ts';
-import { ValidationError } from '../io/invalid.ts';
+import { ValidationError } from '../validate/invalid.ts';
 import { hnfRows, makePattern } from '../lattice/pattern.ts';
 import { countingRuleDoping } from '../tb/countingRule.ts';
 import { FermiSolver } from '../tb/fermi.ts';

@@ -2,7 +2,7 @@
  * The calibrate panel's fields as typed text → values, each read on its own with its label in the error
  * (`invalid <label>: <text> (<why>)`), so a bad field is named and the others are still used.
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { PARAMETER_PRESETS } from '../tb/params.ts';
 import type { BandBlock } from '../learn/calibrate/parametricBands.ts';
 

@@ -5,8 +5,8 @@
 import demoBands from '../../presets/demo/hsl-beta12-reference-bands.json' with { type: 'json' };
 import { prepareCalibration } from '../figures/prepareCalibration.ts';
 import type { CalibrationFigureData } from '../figures/types.ts';
-import { invalid, namingSource, ValidationError } from '../io/invalid.ts';
-import { validateParameterObject } from '../io/paramsFile.ts';
+import { invalid, namingSource, ValidationError } from '../validate/invalid.ts';
+import { validateParameterObject } from '../tb/paramsCheck.ts';
 import { parseReferenceBandsText, validateReferenceBands } from '../io/referenceBandsFile.ts';
 import {
   calibrate, checkBlock, checkKpointsFitSheet, cutoffCandidates, defaultStarts, matchBands, MODEL_PARAMETERS, oneBondLength,

@@ -8,9 +8,9 @@
  * Every entry is validated with the same parsers as the CLI's files, with the entry's path in the error
  * (`invalid sheets[2].sheet.vacancies[0]: …`). An import is all or nothing: a bad file changes nothing.
  */
-import { fieldPath, invalid, ValidationError } from '../io/invalid.ts';
-import { requireArray, requireRecord } from '../io/fields.ts';
-import { validateParameterObject } from '../io/paramsFile.ts';
+import { fieldPath, invalid, ValidationError } from '../validate/invalid.ts';
+import { requireArray, requireRecord } from '../validate/fields.ts';
+import { validateParameterObject } from '../tb/paramsCheck.ts';
 import { parseSheetObject } from '../io/sheetFile.ts';
 import { hnfRows } from '../lattice/pattern.ts';
 import type { Pattern, Sheet } from '../lattice/sheet.ts';

@@ -15,7 +15,7 @@ import { MetalPanel } from './panels/metalPanel.ts';
 import { StmPanel } from './panels/stmPanel.ts';
 import { CalibratePanel } from './panels/calibratePanel.ts';
 import { defaultState, readHash, type ViewState } from './state.ts';
-import { ValidationError } from '../io/invalid.ts';
+import { ValidationError } from '../validate/invalid.ts';
 
 const $ = <T extends Element>(selector: string) => document.querySelector<T>(selector)!;
 

@@ -3,7 +3,7 @@
  * on its own: an empty one means the estimated default, a bad one is refused with its name and reason and the
  * others are still used; then d ≥ d0 is checked across the two (the field just edited is the one refused).
  */
-import { ValidationError, invalid, show } from '../io/invalid.ts';
+import { ValidationError, invalid, show } from '../validate/invalid.ts';
 import { ALIGNMENT_FLAG_LIMITS, type AlignmentField } from '../substrate/alignmentLimits.ts';
 import { alignmentParameters, type AlignmentParameters } from '../substrate/transfer.ts';
 

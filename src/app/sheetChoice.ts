@@ -3,7 +3,7 @@
  * site, a new supercell. Pure (no DOM): the panels call these and keep the results in the view state.
  */
 import { primitivePattern } from '../enumerate/period.ts';
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { hnfRows, holeDensity, makePattern, patternToSheet } from '../lattice/pattern.ts';
 import { reduceSite, toHnf } from '../lattice/hnf.ts';
 import { findSheetPreset } from '../lattice/presets.ts';

@@ -12,7 +12,7 @@
  * Every field is validated like any input: a bad one is reported as `invalid URL <key>: <value> (<why>)` and
  * falls back to its default, the others are kept.
  */
-import { ValidationError, invalid } from '../io/invalid.ts';
+import { ValidationError, invalid } from '../validate/invalid.ts';
 import { parseParameterFile } from '../io/paramsFile.ts';
 import { parseSheetText } from '../io/sheetFile.ts';
 import { hnfRows } from '../lattice/pattern.ts';

@@ -2,7 +2,7 @@
  * The STM panel's fields as typed text → values, each read on its own with its label in the error
  * (`invalid <label>: <text> (<why>)`), so a bad field is named and the others are still used.
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import type { Background } from '../stm/background.ts';
 import type { StmMode } from '../stm/simulate.ts';
 import { LIMITS } from './state.ts';

@@ -6,7 +6,7 @@
 import { prepareMeasuredPicture, prepareStmSimulation, type TipSettings } from '../figures/prepareStm.ts';
 import type { StmPictureData } from '../figures/types.ts';
 import { readPicture, type DecodedPicture } from '../io/imageFile.ts';
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { hnfRows, patternToSheet } from '../lattice/pattern.ts';
 import { findSheetPreset } from '../lattice/presets.ts';
 import type { Sheet, Vec2 } from '../lattice/sheet.ts';

@@ -2,7 +2,7 @@
  * Command-line flags: one declarative spec per command, one parser, one error style.
  * Every refusal is a ValidationError `invalid --flag: <value> (<why>)`, so the shell prints one line and exits 2.
  */
-import { ValidationError, invalid } from '../io/invalid.ts';
+import { ValidationError, invalid } from '../validate/invalid.ts';
 
 /** What a flag accepts. Ranges are inclusive; `a-b` or a single value `a`. */
 export type FlagKind =

@@ -2,7 +2,7 @@
  * What a command may touch of the outside world. The real process supplies it in main.ts; tests supply a fake,
  * so every command runs in-process under test.
  */
-import { ValidationError } from '../io/invalid.ts';
+import { ValidationError } from '../validate/invalid.ts';
 import type { ProgressSink } from './progress.ts';
 
 export interface CliIo {

@@ -2,7 +2,7 @@
  * The --params option (a parameter-set preset name or a parameter file, DESIGN.md contract), and the model
  * that it and the SHEET argument make.
  */
-import { invalid, namingSource } from '../io/invalid.ts';
+import { invalid, namingSource } from '../validate/invalid.ts';
 import { parseParameterFile } from '../io/paramsFile.ts';
 import { DEFAULT_PARAMETERS, PARAMETER_PRESETS, findParameterPreset, type ParameterSet } from '../tb/params.ts';
 import { TightBindingModel } from '../tb/model.ts';

@@ -6,7 +6,7 @@
  * use), and every PNG is the same on every machine.
  */
 import { createRequire } from 'node:module';
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 
 const FONT_FILES = ['@expo-google-fonts/noto-sans/400Regular/NotoSans_400Regular.ttf', '@expo-google-fonts/noto-sans/400Regular_Italic/NotoSans_400Regular_Italic.ttf'];
 

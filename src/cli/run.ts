@@ -2,7 +2,7 @@
  * The command-line shell: dispatch, help, and the one rule for errors — a ValidationError is one line on stderr
  * and exit code 2; a closed stdout pipe stops quietly with status 141; anything else is an internal error, exit 1, with the trace only when LACUNA_DEBUG is set.
  */
-import { ValidationError, invalid } from '../io/invalid.ts';
+import { ValidationError, invalid } from '../validate/invalid.ts';
 import { commandHelp } from './args.ts';
 import { bandsCommand } from './commands/bands.ts';
 import { bondingCommand } from './commands/bonding.ts';

@@ -1,7 +1,7 @@
 /**
  * The SHEET argument of every command: a preset name, a path to a sheet file, or the JSON text itself.
  */
-import { invalid, namingSource } from '../io/invalid.ts';
+import { invalid, namingSource } from '../validate/invalid.ts';
 import { parseSheetText } from '../io/sheetFile.ts';
 import { patternToSheet } from '../lattice/pattern.ts';
 import { SHEET_PRESETS, findSheetPreset } from '../lattice/presets.ts';

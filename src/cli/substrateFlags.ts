@@ -1,7 +1,7 @@
 /**
  * Flags shared by the substrate commands (transfer, fit, metals), declared once, and the caveat under their output.
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { ALIGNMENT_FLAG_LIMITS as L } from '../substrate/alignmentLimits.ts';
 import { ALIGNMENT_DEFAULTS } from '../substrate/defaults.ts';
 import { requireSubstrate, SUBSTRATES, type Substrate } from '../substrate/substrates.ts';

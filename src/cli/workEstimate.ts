@@ -4,7 +4,7 @@
  * of running silently for a day. The constants are measured (bench/eigh.ts on a 2-core laptop-class machine),
  * rounded up; the estimate is an order of magnitude, not a promise.
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { isPlanar, type Sheet } from '../lattice/sheet.ts';
 import { readableSeconds } from './progress.ts';
 

@@ -2,7 +2,7 @@
  * The data of the figures, computed from the core: pure, synchronous, structured-cloneable results (typed
  * arrays and plain objects), so the web view runs these in a Web Worker and the CLI calls them directly.
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { coordination } from '../lattice/neighbours.ts';
 import { hexagonalHoles } from '../lattice/holes.ts';
 import { patternToSheet } from '../lattice/pattern.ts';

@@ -2,8 +2,9 @@
  * The data of the STM picture figure (src/figures/stmPicture.ts) from the core's pictures: pure and
  * structured-cloneable, so the web view's STM worker prepares it and posts it to the page.
  */
-import { invalid } from '../io/invalid.ts';
-import { encodeGreyPng, toGrey8 } from '../io/png.ts';
+import { invalid } from '../validate/invalid.ts';
+import { encodeGreyPng } from '../io/png.ts';
+import { toGrey8 } from '../stm/grey.ts';
 import { gaussReduce } from '../lattice/reduce.ts';
 import type { Sheet, Vec2 } from '../lattice/sheet.ts';
 import { STM_DEFAULTS, stmModel, type StmMode } from '../stm/simulate.ts';

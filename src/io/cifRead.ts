@@ -10,7 +10,7 @@
  * Every refusal names the CIF item and its line: `invalid CIF _cell_length_a (line 3): … (…)`.
  */
 import { parseSheetObject, type ParsedSheet } from './sheetFile.ts';
-import { invalid } from './invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { MAX_SHEET_TEXT_LENGTH } from './sheetLimits.ts';
 
 interface Item {

@@ -6,8 +6,8 @@ import { gaussReduce } from '../lattice/reduce.ts';
 import { wrapFraction } from '../lattice/reducedCell.ts';
 import { shortestSeparation } from '../lattice/separation.ts';
 import type { Sheet, Vec2 } from '../lattice/sheet.ts';
-import { refuseRendered, requireArray, requireFinite } from './fields.ts';
-import { invalid } from './invalid.ts';
+import { refuseRendered, requireArray, requireFinite } from '../validate/fields.ts';
+import { invalid } from '../validate/invalid.ts';
 import {
   MAX_ABS_FRACTION, MAX_ABS_HEIGHT, MAX_ATOMS, MAX_CELL_COMPONENT, MIN_ATOM_SEPARATION, MIN_CELL_SINE,
 } from './sheetLimits.ts';

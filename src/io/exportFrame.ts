@@ -4,7 +4,7 @@
  */
 import { alignFirstVector, reducedSheet } from '../lattice/reducedCell.ts';
 import type { Sheet } from '../lattice/sheet.ts';
-import { invalid } from './invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { MIN_ATOM_SEPARATION } from './sheetLimits.ts';
 
 /** Default length of the third (vacuum) cell vector, Å: wide enough that periodic copies of a sheet do not interact. */

@@ -7,7 +7,7 @@
  */
 import { convertIndexedToRgb, decode as decodePng } from 'fast-png';
 import { decode as decodeJpeg } from 'jpeg-js';
-import { invalid } from './invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 
 /** Largest picture accepted (pixels) and largest side: 4096 × 4096 would need ~0.5 GB for the padded FFT. */
 export const MAX_PICTURE_PIXELS = 2048 * 2048;

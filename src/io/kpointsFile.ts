@@ -1,7 +1,7 @@
 /**
  * k-points file (DESIGN.md, `bands --kpoints`): `{ "kpoints": [[kx, ky], …] }` in Cartesian Å⁻¹.
  */
-import { fieldPath, invalid } from './invalid.ts';
+import { fieldPath, invalid } from '../validate/invalid.ts';
 
 /** Most k-points one file may hold. */
 export const MAX_KPOINTS = 1_000_000;

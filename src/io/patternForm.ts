@@ -6,8 +6,8 @@
 import { reduceSite, toHnf } from '../lattice/hnf.ts';
 import { makePattern } from '../lattice/pattern.ts';
 import type { Pattern } from '../lattice/sheet.ts';
-import { refuseRendered, requireArray, requireFinite, requireInteger } from './fields.ts';
-import { invalid } from './invalid.ts';
+import { refuseRendered, requireArray, requireFinite, requireInteger } from '../validate/fields.ts';
+import { invalid } from '../validate/invalid.ts';
 import { MAX_BOND, MAX_INTEGER_ENTRY, MAX_SUPERCELL_SITES, MIN_ATOM_SEPARATION } from './sheetLimits.ts';
 
 type Rows = [[number, number], [number, number]];

@@ -84,17 +84,3 @@ export function encodeGreyPng(width: number, height: number, grey: Uint8Array): 
   }
   return out;
 }
-
-/** Maps values linearly onto 0…255 (minimum → 0, maximum → 255; a flat picture → 128). */
-export function toGrey8(values: Float64Array): Uint8Array {
-  let lo = Infinity, hi = -Infinity;
-  for (let i = 0; i < values.length; i++) {
-    if (values[i] < lo) lo = values[i];
-    if (values[i] > hi) hi = values[i];
-  }
-  const out = new Uint8Array(values.length);
-  if (!(hi > lo)) return out.fill(128);
-  const scale = 255 / (hi - lo);
-  for (let i = 0; i < values.length; i++) out[i] = Math.round((values[i] - lo) * scale);
-  return out;
-}

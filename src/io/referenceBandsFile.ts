@@ -9,8 +9,8 @@
  * energies; |E| ≤ 1000 eV; the text ≤ 64 MB.
  */
 import type { ReferenceBands } from '../learn/calibrate/referenceBands.ts';
-import { requireArray, requireRecord } from './fields.ts';
-import { fieldPath, invalid } from './invalid.ts';
+import { requireArray, requireRecord } from '../validate/fields.ts';
+import { fieldPath, invalid } from '../validate/invalid.ts';
 import { readKpointList } from './kpointsFile.ts';
 
 export const REFERENCE_LIMITS = {

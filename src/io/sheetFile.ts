@@ -9,9 +9,9 @@ import { patternToSheet } from '../lattice/pattern.ts';
 import { RECOGNITION_TOLERANCE, sheetToPattern } from '../lattice/recognise.ts';
 import type { Pattern, Sheet } from '../lattice/sheet.ts';
 import { readExplicitForm } from './explicitForm.ts';
-import { refuseRendered, requireRecord } from './fields.ts';
-import { invalid } from './invalid.ts';
-import { fieldPath } from './invalid.ts';
+import { refuseRendered, requireRecord } from '../validate/fields.ts';
+import { invalid } from '../validate/invalid.ts';
+import { fieldPath } from '../validate/invalid.ts';
 import { readPatternForm } from './patternForm.ts';
 import { MAX_NAME_LENGTH, MAX_SHEET_TEXT_LENGTH, MAX_SUPERCELL_SITES } from './sheetLimits.ts';
 

@@ -12,7 +12,7 @@
  * side = 2·order + 1. Heights are measured from the highest atom.
  */
 import { signedArea, type Sheet, type Vec2 } from '../lattice/sheet.ts';
-import { HermitianEigensolver } from '../tb/eigh.ts';
+import { HermitianEigensolver } from '../linalg/eigh.ts';
 import { reciprocal } from '../tb/kspace.ts';
 import type { TightBindingModel } from '../tb/model.ts';
 import type { WeightedKpoints } from './halfMesh.ts';

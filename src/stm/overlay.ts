@@ -4,7 +4,7 @@
  * picture averaged onto the fitted cell, so they sit on the bright feature the lattice repeats.
  * Layout: grey[row·width + col], row 0 at the top (PNG order).
  */
-import { toGrey8 } from '../io/png.ts';
+import { toGrey8 } from './grey.ts';
 import type { Analysis } from './analyse.ts';
 import { foldPicture } from './fold.ts';
 

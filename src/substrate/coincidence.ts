@@ -19,7 +19,7 @@ import { gaussReduce } from '../lattice/reduce.ts';
 import { hnfsOfIndex, type Hnf } from '../lattice/hnf.ts';
 import type { Sheet, Vec2 } from '../lattice/sheet.ts';
 import { SQRT3 } from '../lattice/triangular.ts';
-import { sheetSymmetry } from './sheetSymmetry.ts';
+import { sheetSymmetry } from '../lattice/sheetSymmetry.ts';
 import { principalStretch } from './stretch.ts';
 
 export type IntRows = [[number, number], [number, number]];

@@ -1,7 +1,6 @@
 /** Metal substrates: presets, coincidence fits, electron transfer, the η–δ map. Re-exports only. */
 export * from './substrates.ts';
 export * from './stretch.ts';
-export * from './sheetSymmetry.ts';
 export * from './coincidence.ts';
 export * from './defaults.ts';
 export * from './alignment.ts';

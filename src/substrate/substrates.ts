@@ -9,8 +9,8 @@ import ag111 from '../../presets/substrates/ag111.json' with { type: 'json' };
 import al111 from '../../presets/substrates/al111.json' with { type: 'json' };
 import au111 from '../../presets/substrates/au111.json' with { type: 'json' };
 import cu111 from '../../presets/substrates/cu111.json' with { type: 'json' };
-import { fieldPath, invalid } from '../io/invalid.ts';
-import { requireFinite, requireRecord } from '../io/fields.ts';
+import { fieldPath, invalid } from '../validate/invalid.ts';
+import { requireFinite, requireRecord } from '../validate/fields.ts';
 
 /** A metal surface with the provenance of every number. */
 export interface Substrate {

@@ -6,7 +6,7 @@
  * The first two are what the sheet wants; the third is what a weakly coupled metal gives. All three are model
  * estimates, not predictions of which pattern grows.
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { countingRuleDoping, countingRuleHoleDensity } from '../tb/countingRule.ts';
 import type { MeshSpectrum } from '../tb/meshSpectrum.ts';
 import { sigmaBonding } from '../tb/sigmaBonding.ts';

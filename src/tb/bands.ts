@@ -3,11 +3,14 @@
  *
  * Layout (BandResult): k-major, energies[k·bands + b], bands ascending at every k; sigmaWeight in the same layout
  * is the s + px + py share Σ_atoms Σ_{α∈s,px,py} |c_α|² of each state (its π share is 1 − sigmaWeight).
- * Planar sheets diagonalise the σ (3n) and π (n) blocks separately — weights exactly 1 and 0, no eigenvectors;
- * buckled sheets diagonalise the full 4n block with eigenvectors.
+ * Planar sheets diagonalise the σ (3n) and π (n) blocks separately — weights exactly 1 and 0, no eigenvectors —
+ * in their real form when the sheet has a 2-fold axis (realForm.ts); buckled sheets diagonalise the full 4n block
+ * with eigenvectors.
  */
-import { HermitianEigensolver } from './eigh.ts';
-import type { TightBindingModel } from './model.ts';
+import { HermitianEigensolver } from '../linalg/eigh.ts';
+import { SymmetricEigenvalues } from '../linalg/symmetricEigenvalues.ts';
+import type { HamiltonianBlock, TightBindingModel } from './model.ts';
+import { realForm, type RealForm } from './realForm.ts';
 
 /** Bands at a list of k-points. */
 export interface BandResult {
@@ -29,6 +32,42 @@ export interface BandOptions {
   onProgress?: (done: number, total: number) => void;
 }
 
+/**
+ * Eigenvalues of one block of H(k), solved in the real form (realForm.ts) when the sheet has a 2-fold axis —
+ * the same numbers for about half the work — else as the complex Hermitian matrix. Workspaces kept across k.
+ */
+class BlockEigenvalues {
+  private readonly re: Float64Array;
+  private readonly im: Float64Array;
+  private readonly real: Float64Array | undefined;
+  private readonly form: RealForm | undefined;
+  private readonly complexSolver: HermitianEigensolver | undefined;
+  private readonly realSolver: SymmetricEigenvalues | undefined;
+
+  constructor(private readonly model: TightBindingModel, private readonly block: HamiltonianBlock, realFormAllowed: boolean) {
+    const n = model.size(block);
+    this.re = new Float64Array(n * n);
+    this.im = new Float64Array(n * n);
+    this.form = realFormAllowed ? realForm(model, block) : undefined;
+    if (this.form) {
+      this.real = new Float64Array(n * n);
+      this.realSolver = new SymmetricEigenvalues(n);
+    } else {
+      this.complexSolver = new HermitianEigensolver(n);
+    }
+  }
+
+  solve(kx: number, ky: number, out: Float64Array): void {
+    this.model.hamiltonian(kx, ky, this.block, this.re, this.im);
+    if (this.form) {
+      this.form.transform(this.re, this.im, this.real!);
+      this.realSolver!.eigenvalues(this.real!, out);
+    } else {
+      this.complexSolver!.eigenvalues(this.re, this.im, out);
+    }
+  }
+}
+
 /** How often (in k-points) progress is reported. */
 const PROGRESS_EVERY = 256;
 
@@ -45,27 +84,22 @@ export function diagonaliseRows(
   sigmaWeight: Float64Array,
   rowOrder: 'ascending' | 'blocks',
   onProgress?: (done: number, total: number) => void,
+  realFormAllowed = true,
 ): void {
   const count = kpoints.length / 2;
   const bands = model.size('full');
   if (model.planar) {
     const nSigma = model.size('sigma');
     const nPi = model.size('pi');
-    const sigmaSolver = new HermitianEigensolver(nSigma);
-    const piSolver = new HermitianEigensolver(nPi);
-    const sigmaRe = new Float64Array(nSigma * nSigma);
-    const sigmaIm = new Float64Array(nSigma * nSigma);
-    const piRe = new Float64Array(nPi * nPi);
-    const piIm = new Float64Array(nPi * nPi);
+    const sigma = new BlockEigenvalues(model, 'sigma', realFormAllowed);
+    const pi = new BlockEigenvalues(model, 'pi', realFormAllowed);
     const sigmaValues = new Float64Array(nSigma);
     const piValues = new Float64Array(nPi);
     for (let k = 0; k < count; k++) {
       const kx = kpoints[2 * k];
       const ky = kpoints[2 * k + 1];
-      model.hamiltonian(kx, ky, 'sigma', sigmaRe, sigmaIm);
-      sigmaSolver.eigenvalues(sigmaRe, sigmaIm, sigmaValues);
-      model.hamiltonian(kx, ky, 'pi', piRe, piIm);
-      piSolver.eigenvalues(piRe, piIm, piValues);
+      sigma.solve(kx, ky, sigmaValues);
+      pi.solve(kx, ky, piValues);
       const row = k * bands;
       if (rowOrder === 'blocks') {
         for (let b = 0; b < nSigma; b++) {

@@ -11,7 +11,7 @@
  * Layout: orbitalWeight[4·atom + α], α = s, px, py, pz (src/tb/slaterKoster.ts).
  */
 import { cartesian } from '../lattice/sheet.ts';
-import { HermitianEigensolver } from './eigh.ts';
+import { HermitianEigensolver } from '../linalg/eigh.ts';
 import type { HamiltonianBlock, TightBindingModel } from './model.ts';
 import { ORBITALS } from './slaterKoster.ts';
 

@@ -17,6 +17,8 @@ export const OCCUPATION_RANGE = 7;
 /** Required agreement of the count at E_F with the requested count (electrons per atom). */
 export const COUNT_TOLERANCE = 1e-10;
 const ONE_OVER_SQRT_PI = 1 / Math.sqrt(Math.PI);
+/** States closer than this (eV) are one degenerate level split by rounding, never a gap. */
+const SMALLEST_GAP = 1e-9;
 
 /** A Fermi level and what it was found in. */
 export interface FermiLevel {
@@ -81,7 +83,7 @@ export class FermiSolver {
     if (Math.abs(states - filled) <= 1e-9 * Math.max(1, states) && filled > 0 && filled < sorted.length) {
       const lower = sorted[filled - 1];
       const upper = sorted[filled];
-      if (upper > lower) {
+      if (upper - lower > SMALLEST_GAP) {
         const middle = 0.5 * (lower + upper);
         const count = this.countAt(middle, smearing).count;
         if (Math.abs(count - electrons) <= COUNT_TOLERANCE) {

@@ -4,7 +4,7 @@
  * per atom 2·Σ_k w_k Σ_b f·E / atoms, with w_k = 1/M². When the count falls in an interval that the mesh leaves
  * empty, E_F is its midpoint; whether the sheet has a gap there is decided with the model (src/tb/gapCheck.ts).
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { FermiSolver, occupation } from './fermi.ts';
 import { checkGap, type GapVerdict, type GapWitness } from './gapCheck.ts';
 import { DEFAULT_MESH, meshSpectrum, type MeshSpectrum } from './meshSpectrum.ts';

@@ -16,7 +16,7 @@
  * Which states count: 'all' every band; 'sigma' the σ block of a planar sheet (its σ and π bands cross freely,
  * since the blocks decouple); on a buckled sheet 'sigma' means all bands.
  */
-import { HermitianEigensolver } from './eigh.ts';
+import { HermitianEigensolver } from '../linalg/eigh.ts';
 import { reciprocal } from './kspace.ts';
 import { autoPath } from './kspacePath.ts';
 import type { MeshSpectrum } from './meshSpectrum.ts';
@@ -91,6 +91,9 @@ class PointSpectrum {
 /** The six neighbours of a point of the triangular grid of fractional k (pattern-search directions). */
 const STEPS: readonly (readonly [number, number])[] = [[1, 0], [-1, 0], [0, 1], [0, -1], [1, -1], [-1, 1]];
 
+/** Energies closer than this (eV) are one state seen twice: far above rounding, far below any real splitting. */
+const TIE = 1e-9;
+
 /** Running extremes over checked k-points; numbers only, so that adding a k-point allocates nothing. */
 class Tally {
   count = -1;
@@ -125,18 +128,25 @@ class Tally {
     this.low = low;
     if (this.count < 0) this.count = below;
     else if (below !== this.count) this.uniform = false;
-    // A tie at a labelled point takes the label (Γ is both the mesh's first point and the path's).
-    if (high > this.top || (label && !this.topLabel && high === this.top)) {
-      this.top = high;
+    // A tie at a labelled point takes the label (Γ is both the mesh's first point and the path's). Ties are
+    // within TIE: the mesh and the path may solve one k-point by different kernels (real form, complex).
+    const topTie = label !== undefined && !this.topLabel && Math.abs(high - this.top) <= TIE;
+    if (high > this.top + TIE || topTie) {
+      this.top = Math.max(high, topTie ? this.top : high);
       this.topK[0] = kx;
       this.topK[1] = ky;
       this.topLabel = label;
+    } else if (high > this.top) {
+      this.top = high;
     }
-    if (low < this.bottom || (label && !this.bottomLabel && low === this.bottom)) {
-      this.bottom = low;
+    const bottomTie = label !== undefined && !this.bottomLabel && Math.abs(low - this.bottom) <= TIE;
+    if (low < this.bottom - TIE || bottomTie) {
+      this.bottom = Math.min(low, bottomTie ? this.bottom : low);
       this.bottomK[0] = kx;
       this.bottomK[1] = ky;
       this.bottomLabel = label;
+    } else if (low < this.bottom) {
+      this.bottom = low;
     }
   }
 }

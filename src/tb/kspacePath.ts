@@ -14,7 +14,7 @@
  *                                        Γ–X–H1–Y–H2–C–Γ, X = b1/2, Y = b2/2, C = (b2 − b1)/2, H1 and H2 the corners
  *                                        between them (the other half follows from E(k) = E(−k)).
  */
-import { invalid } from '../io/invalid.ts';
+import { invalid } from '../validate/invalid.ts';
 import { gaussReduce } from '../lattice/reduce.ts';
 import type { Sheet, Vec2 } from '../lattice/sheet.ts';
 import { reciprocal } from './kspace.ts';

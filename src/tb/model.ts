@@ -5,7 +5,7 @@
  *
  * Layout. Bond e (ordered, both directions listed): atoms bondFrom[e] → bondTo[e], in-plane vector
  * (bondX[e], bondY[e]) Å, and its 4×4 block at blocks[16e … 16e + 15] (src/tb/slaterKoster.ts layout).
- * H(k) is split storage, row-major (src/tb/eigh.ts): element (r, c) = re[r·size + c] + i·im[r·size + c], with
+ * H(k) is split storage, row-major (src/linalg/eigh.ts): element (r, c) = re[r·size + c] + i·im[r·size + c], with
  * row index 4·atom + orbital (full), 3·atom + orbital (σ: s, px, py) or atom (π: pz).
  *
  * Planar sheets: every bond has n = 0, so E_s,z = E_x,z = E_y,z = 0 exactly and H splits into the σ block (3n)
@@ -13,6 +13,7 @@
  */
 import { neighbours } from '../lattice/neighbours.ts';
 import { isPlanar, type Sheet } from '../lattice/sheet.ts';
+import { sheetOperations, type SheetOperation } from '../lattice/sheetSymmetry.ts';
 import type { ParameterSet } from './params.ts';
 import { ORBITALS, slaterKosterBlock } from './slaterKoster.ts';
 
@@ -65,6 +66,14 @@ export class TightBindingModel {
         this.blocks, 16 * e,
       );
     }
+  }
+
+  private symmetry: SheetOperation[] | undefined;
+
+  /** The sheet's symmetry operations (sheetSymmetry.ts), found on first use and kept: mesh stars and the real form use them. */
+  get operations(): readonly SheetOperation[] {
+    this.symmetry ??= sheetOperations(this.sheet);
+    return this.symmetry;
   }
 
   /** Order of the matrix for a block: 4n, 3n or n. */

@@ -1,33 +1,13 @@
 /**
- * Slater–Koster parameter sets: the type, the named presets (data in presets/params/*.json, each with its
+ * Slater–Koster parameter sets: the named presets (data in presets/params/*.json, each with its
  * source) and the default. Every preset goes through the same validation as a user's parameter file.
  */
 import harrison1980 from '../../presets/params/harrison1980.json' with { type: 'json' };
 import harrison1999 from '../../presets/params/harrison1999.json' with { type: 'json' };
-import { validateParameterObject } from '../io/paramsFile.ts';
+import type { ParameterSet } from './parameterSet.ts';
+import { validateParameterObject } from './paramsCheck.ts';
 
-/**
- * A two-centre Slater–Koster parameter set for s, px, py, pz orbitals on boron (DESIGN.md, parameter-file contract).
- * Energies in eV on the set's own scale, lengths in Å.
- */
-export interface ParameterSet {
-  /** Name carried by every result computed with this set, so outputs always say which set was used. */
-  name: string;
-  /** Where the values come from (publication, and which values are from memory). */
-  source: string;
-  /** Optional notes on individual values (rounding, choices, what is from memory). */
-  provenance?: string;
-  /** On-site energies εs, εp (eV). */
-  onsite: { s: number; p: number };
-  /** Two-centre integrals V(d0) (eV), Slater & Koster, Phys. Rev. 94, 1498 (1954). */
-  hopping: { ss_sigma: number; sp_sigma: number; pp_sigma: number; pp_pi: number };
-  /** Reference distance d0 (Å) at which `hopping` holds. */
-  d0: number;
-  /** Distance law V(d) = V(d0)·(d0/d)^exponent. */
-  exponent: number;
-  /** Pairs closer than this (Å) are coupled; farther ones are not. */
-  cutoff: number;
-}
+export type { ParameterSet } from './parameterSet.ts';
 
 /** The named parameter sets, in order of publication. */
 export const PARAMETER_PRESETS: readonly ParameterSet[] = [harrison1980, harrison1999].map((data, index) =>

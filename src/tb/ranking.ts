@@ -66,26 +66,40 @@ export function rankByBandEnergy(
   options: RankingOptions = {},
 ): RankingResult {
   const { onProgress, ...solveOptions } = options;
-  const groups: { holeDensity: number; patterns: RankedPattern[] }[] = [];
-  for (const [done, { name, pattern }] of patterns.entries()) {
-    const eta = holeDensity(pattern);
+  const solved = patterns.map(({ name, pattern }, done) => {
     const result = rankingFill(pattern, params, solveOptions);
     onProgress?.(done + 1, patterns.length);
+    return { name, eta: holeDensity(pattern), ...result };
+  });
+  return groupRanking(solved, params.name);
+}
+
+/** One solved pattern, as rankingFill gives it, with its name and hole density: what groupRanking sorts. */
+export type SolvedPattern = ReturnType<typeof rankingFill> & { name: string; eta: number };
+
+/**
+ * Patterns solved one by one (here, or elsewhere in any order — the CLI spreads them over threads) grouped by
+ * hole density, lowest band energy first. The order of `solved` does not matter.
+ */
+export function groupRanking(solved: readonly SolvedPattern[], parameters: string): RankingResult {
+  const groups: { holeDensity: number; patterns: RankedPattern[] }[] = [];
+  for (const { name, eta, fermi, bandEnergyPerAtom, mesh, meshRule } of solved) {
     let group = groups.find((g) => Math.abs(g.holeDensity - eta) < SAME_ETA);
     if (!group) {
       group = { holeDensity: eta, patterns: [] };
       groups.push(group);
     }
-    group.patterns.push({ name, fermi: result.fermi, bandEnergyPerAtom: result.bandEnergyPerAtom, aboveLowest: 0, mesh: result.mesh, meshRule: result.meshRule });
+    group.patterns.push({ name, fermi, bandEnergyPerAtom, aboveLowest: 0, mesh, meshRule });
   }
   groups.sort((a, b) => a.holeDensity - b.holeDensity);
   for (const group of groups) {
-    group.patterns.sort((a, b) => a.bandEnergyPerAtom - b.bandEnergyPerAtom);
+    // Ties broken by name, so that the order never depends on the order the patterns were solved in.
+    group.patterns.sort((a, b) => a.bandEnergyPerAtom - b.bandEnergyPerAtom || (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
     const lowest = group.patterns[0].bandEnergyPerAtom;
     for (const p of group.patterns) p.aboveLowest = p.bandEnergyPerAtom - lowest;
   }
   return {
-    parameters: params.name,
+    parameters,
     groups,
     note: 'band energies per atom compare within one hole density η only (equal bond counts for isolated holes); not across η',
   };

@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { parseArgs, type CommandSpec, type FlagValue } from '../../src/cli/args.ts';
 import { COMMANDS } from '../../src/cli/run.ts';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { refusal as message } from '../io/refusal.ts';
 
 const demoSpec: CommandSpec = {

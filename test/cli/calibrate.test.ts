@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { validateParameterObject } from '../../src/io/paramsFile.ts';
+import { validateParameterObject } from '../../src/tb/paramsCheck.ts';
 import { presetSheet } from '../tb/fixtures.ts';
 import { BUCKLED, TRUTH, modelReference } from '../learn/calibrate/helpers.ts';
 import { cli, refused } from './runCommand.ts';

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { centredOrigin, latticePoints, pngDataUrl, prepareMeasuredPicture, prepareSimulatedPicture } from '../../src/figures/prepareStm.ts';
 import { serializeFigure } from '../../src/figures/serialize.ts';
 import { stmPictureFigure, wrapWords } from '../../src/figures/stmPicture.ts';
-import { toGrey8 } from '../../src/io/png.ts';
+import { toGrey8 } from '../../src/stm/grey.ts';
 import type { FigureStyle } from '../../src/figures/types.ts';
 import { patternToSheet } from '../../src/lattice/pattern.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';

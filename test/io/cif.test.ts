@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { sheetToCif } from '../../src/io/cif.ts';
 import { DEFAULT_VACUUM } from '../../src/io/exportFrame.ts';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { makePattern, patternToSheet } from '../../src/lattice/pattern.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
 import { alignFirstVector, cellMetrics, reducedSheet } from '../../src/lattice/reducedCell.ts';

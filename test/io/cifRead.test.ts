@@ -4,7 +4,7 @@ import { sheetToCif } from '../../src/io/cif.ts';
 import { canonicalForm } from '../../src/enumerate/index.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
 import { patternToSheet } from '../../src/lattice/pattern.ts';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 
 describe('parseCifText(text)', () => {
   it('reads back every preset written by sheetToCif as the same vacancy pattern (round trip)', () => {

@@ -3,7 +3,7 @@ import { encode as encodePng } from 'fast-png';
 import { encode as encodeJpeg } from 'jpeg-js';
 import { describe, expect, it } from 'vitest';
 import { MAX_PICTURE_PIXELS, readPicture } from '../../src/io/imageFile.ts';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { encodeGreyPng } from '../../src/io/png.ts';
 import { refusal } from './refusal.ts';
 

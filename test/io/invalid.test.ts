@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fieldPath, invalid, show, ValidationError } from '../../src/io/invalid.ts';
+import { fieldPath, invalid, show, ValidationError } from '../../src/validate/invalid.ts';
 
 describe('show(value)', () => {
   it('renders numbers, strings, missing values and NaN for humans', () => {

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { parseParameterFile } from '../../src/io/paramsFile.ts';
 
 // Fuzzing (property-based testing with fast-check): 10,000+ malformed or extreme parameter files, each of which

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { parseParameterFile } from '../../src/io/paramsFile.ts';
 
 // The contract's example file (DESIGN.md, parameter file), with values of the harrison1980 preset.

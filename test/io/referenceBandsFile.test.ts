@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { parseReferenceBandsText } from '../../src/io/referenceBandsFile.ts';
 import { refusal } from './refusal.ts';
 

@@ -1,5 +1,5 @@
 import { expect } from 'vitest';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 
 /** The message of the ValidationError `run` throws (fails when it throws nothing or something else). */
 export function refusal(run: () => unknown): string {

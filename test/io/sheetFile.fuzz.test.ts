@@ -5,7 +5,7 @@
  */
 import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { parseSheetObject, parseSheetText, type ParsedSheet } from '../../src/io/sheetFile.ts';
 import { patternToJson, sheetToJson } from '../../src/io/sheetJson.ts';
 import { hnfRows, patternToSheet } from '../../src/lattice/pattern.ts';

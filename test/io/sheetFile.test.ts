@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { parseSheetObject, parseSheetText } from '../../src/io/sheetFile.ts';
 import { MAX_ATOMS, MAX_NAME_LENGTH, MAX_SHEET_TEXT_LENGTH } from '../../src/io/sheetLimits.ts';
 import { SQRT3 } from '../../src/lattice/triangular.ts';

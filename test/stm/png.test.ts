@@ -1,6 +1,7 @@
 import { decode } from 'fast-png';
 import { describe, expect, it } from 'vitest';
-import { adler32, crc32, encodeGreyPng, toGrey8 } from '../../src/io/png.ts';
+import { adler32, crc32, encodeGreyPng } from '../../src/io/png.ts';
+import { toGrey8 } from '../../src/stm/grey.ts';
 
 const ascii = (text: string) => new TextEncoder().encode(text);
 

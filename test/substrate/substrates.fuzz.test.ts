@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { validateSubstrate } from '../../src/substrate/substrates.ts';
 
 // Fuzzing (fast-check): 10,000 substrate objects with one field replaced by anything; each is either accepted with

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ValidationError } from '../../src/io/invalid.ts';
+import { ValidationError } from '../../src/validate/invalid.ts';
 import { SUBSTRATES, findSubstrate, requireSubstrate, validateSubstrate } from '../../src/substrate/substrates.ts';
 
 describe('substrate presets', () => {

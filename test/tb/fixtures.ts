@@ -2,7 +2,7 @@
 import { makePattern, patternToSheet } from '../../src/lattice/pattern.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
 import type { Sheet } from '../../src/lattice/sheet.ts';
-import { HermitianEigensolver } from '../../src/tb/eigh.ts';
+import { HermitianEigensolver } from '../../src/linalg/eigh.ts';
 import type { HamiltonianBlock, TightBindingModel } from '../../src/tb/model.ts';
 import { findParameterPreset, type ParameterSet } from '../../src/tb/params.ts';
 

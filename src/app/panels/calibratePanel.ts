@@ -6,7 +6,7 @@
  * the reference and the fit shown stay until a new one succeeds.
  */
 import { calibrationFigure } from '../../figures/calibration.ts';
-import { ValidationError, invalid } from '../../io/invalid.ts';
+import { ValidationError, invalid } from '../../validate/invalid.ts';
 import { REFERENCE_LIMITS } from '../../io/referenceBandsFile.ts';
 import { DEFAULT_WEIGHT_WIDTH } from '../../learn/calibrate/bandWeights.ts';
 import type { ModelParameter } from '../../learn/calibrate/modelParameters.ts';

@@ -4,7 +4,7 @@
  * all), and a click that loads a candidate into the sheet and the bands. Heavy work runs in the search worker,
  * with progress and a stop button.
  */
-import { ValidationError, invalid } from '../../io/invalid.ts';
+import { ValidationError, invalid } from '../../validate/invalid.ts';
 import { hnfRows } from '../../lattice/pattern.ts';
 import type { App } from '../app.ts';
 import { candidateName, sortCandidates, type Candidate, type CandidateList, type CandidateOrder } from '../candidates.ts';

@@ -4,8 +4,8 @@
  * mesh and the supercell fields. Each field is validated on the way in; a refused value names its field and
  * leaves the view as it was.
  */
-import { ValidationError, invalid } from '../../io/invalid.ts';
-import { validateParameterObject } from '../../io/paramsFile.ts';
+import { ValidationError, invalid } from '../../validate/invalid.ts';
+import { validateParameterObject } from '../../tb/paramsCheck.ts';
 import { hnfRows } from '../../lattice/pattern.ts';
 import { SHEET_PRESETS } from '../../lattice/presets.ts';
 import { PARAMETER_PRESETS, type ParameterSet } from '../../tb/params.ts';

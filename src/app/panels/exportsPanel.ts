@@ -13,7 +13,7 @@ import { zoneFigure } from '../../figures/zone.ts';
 import { parseCifText } from '../../io/cifRead.ts';
 import { sheetToCif } from '../../io/cif.ts';
 import { bandsCsv, dosCsv } from '../../io/csv.ts';
-import { ValidationError } from '../../io/invalid.ts';
+import { ValidationError } from '../../validate/invalid.ts';
 import { patternToJson, sheetToJson } from '../../io/sheetJson.ts';
 import { parseSheetText } from '../../io/sheetFile.ts';
 import { sheetToXyz } from '../../io/xyz.ts';

@@ -5,7 +5,7 @@
  * the η–δ map (etaDeltaMap.ts). All heavy work runs in the substrate worker, three lanes so that no job cancels
  * another kind.
  */
-import { ValidationError } from '../../io/invalid.ts';
+import { ValidationError } from '../../validate/invalid.ts';
 import { cellMetrics } from '../../lattice/reducedCell.ts';
 import type { AlignmentField } from '../../substrate/alignmentLimits.ts';
 import { ALIGNMENT_DEFAULTS } from '../../substrate/defaults.ts';

@@ -6,7 +6,7 @@
  */
 import { stmPictureFigure } from '../../figures/stmPicture.ts';
 import type { FigureStyle, StmPictureData } from '../../figures/types.ts';
-import { ValidationError } from '../../io/invalid.ts';
+import { ValidationError } from '../../validate/invalid.ts';
 import type { App } from '../app.ts';
 import { parameterSet, type StmState } from '../state.ts';
 import {

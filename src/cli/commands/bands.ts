@@ -1,7 +1,7 @@
 /**
  * `lacuna bands`: band energies and σ weights on an automatic k-path or on given k-points (DESIGN.md contract).
  */
-import { invalid, namingSource, ValidationError } from '../../io/invalid.ts';
+import { invalid, namingSource, ValidationError } from '../../validate/invalid.ts';
 import { parseKpointsText } from '../../io/kpointsFile.ts';
 import { autoPath, computeBands, type KPath } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';

@@ -4,8 +4,8 @@
  * `parameters` being the parameter file itself). Several sheets: `calibrate A B --bands a.json --bands b.json`, the
  * i-th --bands belonging to the i-th SHEET. The core is src/learn/calibrate.
  */
-import { invalid, namingSource, ValidationError } from '../../io/invalid.ts';
-import { validateParameterObject } from '../../io/paramsFile.ts';
+import { invalid, namingSource, ValidationError } from '../../validate/invalid.ts';
+import { validateParameterObject } from '../../tb/paramsCheck.ts';
 import { parseReferenceBandsText } from '../../io/referenceBandsFile.ts';
 import {
   calibrate, checkBlock, cutoffCandidates, checkKpointsFitSheet, defaultStarts, matchBands, MODEL_PARAMETERS, oneBondLength,

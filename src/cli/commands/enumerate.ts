@@ -3,7 +3,7 @@
  * each once up to the 12 operations of 6mm and translations, at its smallest cell (DESIGN.md contract).
  */
 import { countRowKeys, countStructures, enumerateStructures, type CountRow, type EnumerateOptions, type Structure } from '../../enumerate/index.ts';
-import { invalid } from '../../io/invalid.ts';
+import { invalid } from '../../validate/invalid.ts';
 import { hnfRows, patternCell, patternToSheet } from '../../lattice/pattern.ts';
 import { periodicityMismatch, periodicityOf, reducedPeriodicity } from '../../lattice/periodicity.ts';
 import { parseArgs, rangeText, type CommandSpec } from '../args.ts';

@@ -2,7 +2,7 @@
  * `lacuna export`: a sheet as CIF, extended XYZ or the explicit JSON form (DESIGN.md contract).
  */
 import { sheetToCif } from '../../io/cif.ts';
-import { ValidationError } from '../../io/invalid.ts';
+import { ValidationError } from '../../validate/invalid.ts';
 import { sheetToJson } from '../../io/sheetJson.ts';
 import { sheetToXyz } from '../../io/xyz.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';

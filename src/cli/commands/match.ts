@@ -3,7 +3,7 @@
  * look most like it (DESIGN.md contract).
  */
 import { readPicture } from '../../io/imageFile.ts';
-import { invalid } from '../../io/invalid.ts';
+import { invalid } from '../../validate/invalid.ts';
 import { hnfRows } from '../../lattice/pattern.ts';
 import { encodeGreyPng } from '../../io/png.ts';
 import { analysePicture } from '../../stm/analyse.ts';

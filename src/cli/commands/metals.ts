@@ -4,7 +4,7 @@
  * Candidates: the named sheets, or enumerated patterns with --sites and --holes.
  */
 import { enumerateStructures, type EnumerateOptions } from '../../enumerate/index.ts';
-import { invalid } from '../../io/invalid.ts';
+import { invalid } from '../../validate/invalid.ts';
 import { hnfRows, patternToSheet } from '../../lattice/pattern.ts';
 import { SHEET_PRESETS } from '../../lattice/presets.ts';
 import type { Pattern } from '../../lattice/sheet.ts';

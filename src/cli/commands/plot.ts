@@ -3,7 +3,7 @@
  * named sheets on the four metals with this sheet marked, or its simulated STM picture — drawn in the publication look by the same figure code
  * as the web view (src/figures), written as SVG and/or PNG.
  */
-import { invalid } from '../../io/invalid.ts';
+import { invalid } from '../../validate/invalid.ts';
 import { bandsFigure } from '../../figures/bands.ts';
 import { dosFigure } from '../../figures/dos.ts';
 import { etaDeltaFigure } from '../../figures/etaDelta.ts';

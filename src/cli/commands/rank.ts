@@ -2,10 +2,11 @@
  * `lacuna rank`: enumerated patterns ranked by tight-binding band energy per atom, within groups of equal η.
  */
 import { enumerateStructures, type EnumerateOptions } from '../../enumerate/index.ts';
-import { invalid } from '../../io/invalid.ts';
+import { invalid } from '../../validate/invalid.ts';
 import { hnfRows, patternToSheet } from '../../lattice/pattern.ts';
 import { reducedSheet } from '../../lattice/reducedCell.ts';
-import { DEFAULT_KSPACING, rankByBandEnergy } from '../../tb/index.ts';
+import { DEFAULT_KSPACING, groupRanking, rankByBandEnergy, type RankingOptions, type SolvedPattern } from '../../tb/index.ts';
+import { mapInThreads, threadCount, THREADS_FROM_SECONDS } from '../threads.ts';
 import { parseArgs, rangeText, type CommandSpec } from '../args.ts';
 import { DOPING_FLAG, JSON_FLAG, KSPACING_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, PROGRESS_FLAG, SMEARING_FLAG } from '../commonFlags.ts';
 import type { Command, CliIo } from '../io.ts';
@@ -31,12 +32,13 @@ const spec: CommandSpec = {
     mesh: { ...MESH_FLAG, help: `the same Γ-centred M×M k-mesh for every cell (default: --kspacing ${DEFAULT_KSPACING}, the same density for every cell)` },
     kspacing: KSPACING_FLAG,
     smearing: SMEARING_FLAG,
+    threads: { kind: 'integer', min: 1, max: 256, placeholder: 'T', help: `solve on T threads (default: every core when the work is estimated at ${THREADS_FROM_SECONDS} s or more, else 1)` },
     json: JSON_FLAG,
     progress: PROGRESS_FLAG,
   },
 };
 
-function run(argv: readonly string[], io: CliIo): number {
+async function run(argv: readonly string[], io: CliIo): Promise<number> {
   const { flags } = parseArgs(spec, argv);
   if (!flags.sites) invalid('--sites', undefined, 'required, e.g. --sites 3-12');
   if (!flags.holes) invalid('--holes', undefined, 'required, e.g. --holes 1-2');
@@ -46,11 +48,14 @@ function run(argv: readonly string[], io: CliIo): number {
   const options: EnumerateOptions = { sites: flags.sites as [number, number], holes: flags.holes as [number, number], isolated: flags.isolated === true };
   if (flags.eta) options.holeDensity = flags.eta as [number, number];
   const patterns: { name: string; pattern: import('../../lattice/sheet.ts').Pattern }[] = [];
+  // The canonical form (as `enumerate` prints it) of each name, so a ranked pattern can be found in its output.
+  const canonicalOf = new Map<string, string>();
   for (const structure of enumerateStructures(options)) {
     if (structure.sites === structure.holes) continue; // no atoms left to solve
     if (patterns.length >= MAX_RANKED) invalid('--sites', sitesTyped, `more than ${MAX_RANKED} patterns to rank; narrow --sites, --holes or --eta`);
     const name = structure.phase ?? `N${structure.sites}k${structure.holes}:${JSON.stringify(hnfRows(structure.pattern.supercell))}${JSON.stringify(structure.pattern.vacancies)}`;
     patterns.push({ name, pattern: structure.pattern });
+    canonicalOf.set(name, structure.canonical);
   }
   if (patterns.length === 0) {
     const why = `no pattern with atoms left for --sites ${sitesTyped} --holes ${rangeText(flags.holes as number[])}${flags.isolated ? ' --isolated' : ''}${flags.eta ? ` --eta ${rangeText(flags.eta as number[])}` : ''}`;
@@ -63,20 +68,25 @@ function run(argv: readonly string[], io: CliIo): number {
   for (const p of patterns) {
     const sheet = reducedSheet(patternToSheet(p.pattern));
     const m = meshChoiceOf(flags, sheet, true).mesh;
-    seconds += estimatedSeconds(sheet, m * m);
+    // Half the mesh: k and −k share one solve (meshStars.ts; the sheet's own symmetry saves more, not counted here).
+    seconds += estimatedSeconds(sheet, (m * m) / 2);
   }
   const flag = flags.mesh !== undefined ? '--mesh' : '--kspacing';
   const value = flags.mesh ?? flags.kspacing ?? DEFAULT_KSPACING;
   if (seconds > MAX_ESTIMATED_SECONDS) invalid(flag, String(value), `about ${readableSeconds(seconds)} for ${patterns.length} patterns; use ${flags.mesh !== undefined ? 'a smaller mesh' : 'a larger spacing'} or narrow --sites, --holes or --eta`);
+  const threads = threadCount(flags.threads as number | undefined, seconds, patterns.length);
   const progress = new ProgressLine(io.err, 'patterns', { machine: flags.progress === true, job: 'rank' });
-  progress.estimate(seconds, `${patterns.length} patterns at ${flags.mesh !== undefined ? `mesh ${flags.mesh}` : `k-spacing ${value} Å⁻¹`}`, { patterns: patterns.length });
-  const ranking = rankByBandEnergy(patterns, params, {
+  progress.estimate(seconds / threads, `${patterns.length} patterns at ${flags.mesh !== undefined ? `mesh ${flags.mesh}` : `k-spacing ${value} Å⁻¹`}${threads > 1 ? ` on ${threads} threads` : ''}`, { patterns: patterns.length });
+  const solveOptions: Omit<RankingOptions, 'onProgress'> = {
     doping: flags.doping as number | undefined,
     mesh: flags.mesh as number | undefined,
     kspacing: flags.kspacing as number | undefined,
     smearing: flags.smearing as number | undefined,
-    onProgress: (done, total) => progress.update(done, done / total),
-  });
+  };
+  const onProgress = (done: number, total: number) => progress.update(done, done / total);
+  const ranking = threads > 1
+    ? groupRanking(await mapInThreads<(typeof patterns)[number], SolvedPattern>('rank', { params, options: solveOptions }, patterns, threads, onProgress), params.name)
+    : rankByBandEnergy(patterns, params, { ...solveOptions, onProgress });
   progress.done();
   if (flags.json) {
     io.out(`${JSON.stringify({
@@ -86,7 +96,7 @@ function run(argv: readonly string[], io: CliIo): number {
       ...(flags.mesh === undefined ? { kspacing: value } : {}),
       groups: ranking.groups.map((g) => ({
         eta: g.holeDensity,
-        patterns: g.patterns.map((p) => ({ name: p.name, fermi: p.fermi, band_energy_per_atom: p.bandEnergyPerAtom, above_lowest: p.aboveLowest, mesh: p.mesh })),
+        patterns: g.patterns.map((p) => ({ name: p.name, canonical: canonicalOf.get(p.name), fermi: p.fermi, band_energy_per_atom: p.bandEnergyPerAtom, above_lowest: p.aboveLowest, mesh: p.mesh })),
       })),
     })}\n`);
     return 0;

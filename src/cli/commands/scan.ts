@@ -2,7 +2,7 @@
  * `lacuna scan`: the Fermi level and the σ/π electron split as the doping changes — how a sheet's levels move as
  * a metal gives (δ > 0) or takes (δ < 0) electrons. One mesh spectrum, filled at every doping.
  */
-import { invalid } from '../../io/invalid.ts';
+import { invalid } from '../../validate/invalid.ts';
 import { FermiSolver, fillSpectrum } from '../../tb/index.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';
 import { JSON_FLAG, KSPACING_FLAG, MESH_FLAG, MODEL_CAVEAT, PARAMS_FLAG, SHEET_ARGUMENT, SMEARING_FLAG, PROGRESS_FLAG } from '../commonFlags.ts';

@@ -1,8 +1,9 @@
 /**
  * `lacuna stm`: a simulated STM picture of a sheet as a greyscale PNG (DESIGN.md contract).
  */
-import { invalid } from '../../io/invalid.ts';
-import { encodeGreyPng, toGrey8 } from '../../io/png.ts';
+import { invalid } from '../../validate/invalid.ts';
+import { encodeGreyPng } from '../../io/png.ts';
+import { toGrey8 } from '../../stm/grey.ts';
 import { STM_DEFAULTS, stmModel } from '../../stm/simulate.ts';
 import { renderStm } from '../../stm/stmImage.ts';
 import { parseArgs, type CommandSpec } from '../args.ts';

@@ -4,7 +4,7 @@
  * both: reference files often hold fewer bands than the model (only the valence bands) or more (empty bands the
  * model has no orbitals for).
  */
-import { invalid } from '../../io/invalid.ts';
+import { invalid } from '../../validate/invalid.ts';
 
 /** A resolved match, 0-based. */
 export interface BandMatch {

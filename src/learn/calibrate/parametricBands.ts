@@ -15,7 +15,7 @@
  */
 import { neighbours } from '../../lattice/neighbours.ts';
 import { isPlanar, type Sheet } from '../../lattice/sheet.ts';
-import { HermitianEigensolver } from '../../tb/eigh.ts';
+import { HermitianEigensolver } from '../../linalg/eigh.ts';
 import { slaterKosterBlock } from '../../tb/slaterKoster.ts';
 import { MODEL_PARAMETERS } from './modelParameters.ts';
 

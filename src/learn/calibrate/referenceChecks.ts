@@ -2,7 +2,7 @@
  * Checks that a reference bands file can belong to a sheet, at the boundary (CLI flags, the page's fields), with
  * errors `invalid <field>: <value> (<why>)`.
  */
-import { invalid } from '../../io/invalid.ts';
+import { invalid } from '../../validate/invalid.ts';
 import { isPlanar, type Sheet } from '../../lattice/sheet.ts';
 import { brillouinZone } from '../../tb/zone.ts';
 import type { BandBlock } from './parametricBands.ts';

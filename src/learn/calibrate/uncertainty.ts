@@ -11,7 +11,7 @@
  *
  * Layout: Jacobian row-major, N × P (levenbergMarquardt.ts); correlation P × P row-major.
  */
-import { RealSymmetricEigensolver } from '../../tb/eighReal.ts';
+import { RealSymmetricEigensolver } from '../../linalg/eighReal.ts';
 
 /** Eigenvalues of the unit-diagonal JᵀJ below this fraction of the largest count as zero. */
 export const NULL_RATIO = 1e-10;

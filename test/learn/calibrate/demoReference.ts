@@ -7,7 +7,7 @@
 import { findSheetPreset } from '../../../src/lattice/presets.ts';
 import { patternToSheet } from '../../../src/lattice/pattern.ts';
 import { computeBands } from '../../../src/tb/bands.ts';
-import { xorshift32 } from '../../../src/tb/eighRandom.ts';
+import { xorshift32 } from '../../../src/linalg/eighRandom.ts';
 import { fill } from '../../../src/tb/fill.ts';
 import { autoPath } from '../../../src/tb/kspacePath.ts';
 import { TightBindingModel } from '../../../src/tb/model.ts';

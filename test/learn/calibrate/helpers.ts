@@ -5,7 +5,7 @@ import { ParametricBands, type BandBlock } from '../../../src/learn/calibrate/pa
 import { parameterVector } from '../../../src/learn/calibrate/modelParameters.ts';
 import type { ReferenceBands } from '../../../src/learn/calibrate/referenceBands.ts';
 import type { Sheet } from '../../../src/lattice/sheet.ts';
-import { xorshift32 } from '../../../src/tb/eighRandom.ts';
+import { xorshift32 } from '../../../src/linalg/eighRandom.ts';
 import { autoPath } from '../../../src/tb/kspacePath.ts';
 import type { ParameterSet } from '../../../src/tb/params.ts';
 

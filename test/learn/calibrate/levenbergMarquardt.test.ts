@@ -1,7 +1,7 @@
 import { Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { choleskySolve, levenbergMarquardt, type LeastSquaresProblem } from '../../../src/learn/calibrate/levenbergMarquardt.ts';
-import { xorshift32 } from '../../../src/tb/eighRandom.ts';
+import { xorshift32 } from '../../../src/linalg/eighRandom.ts';
 
 describe('levenbergMarquardt(problem, x0, options)', () => {
   it('finds the minimum (1, 1) of Rosenbrock\'s valley from its classic start (−1.2, 1) (Rosenbrock, Comput. J. 3, 175 (1960); analytic minimum)', () => {

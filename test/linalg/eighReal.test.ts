@@ -1,7 +1,7 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { RealSymmetricEigensolver } from '../../src/tb/eighReal.ts';
-import { HermitianEigensolver } from '../../src/tb/eigh.ts';
+import { RealSymmetricEigensolver } from '../../src/linalg/eighReal.ts';
+import { HermitianEigensolver } from '../../src/linalg/eigh.ts';
 import { frobenius, orthonormalityError, randomHermitian, residual } from './eighChecks.ts';
 
 describe('RealSymmetricEigensolver', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { timeEigenvalues } from '../../src/tb/eighBench.ts';
+import { timeEigenvalues } from '../../src/linalg/eighBench.ts';
 
 describe('timeEigenvalues(sizes, options)', () => {
   it('returns one row per size, in order, with a positive finite time (no speed is asserted)', () => {

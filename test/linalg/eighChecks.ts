@@ -1,9 +1,9 @@
 /**
  * Helpers for the eigensolver tests: invariant measures and independent constructions of test matrices.
- * Layout as in src/tb/eigh.ts: split re/im, row-major, eigenvector m in column m.
+ * Layout as in src/linalg/eigh.ts: split re/im, row-major, eigenvector m in column m.
  */
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
-import { fillRandomHermitian, xorshift32 } from '../../src/tb/eighRandom.ts';
+import { fillRandomHermitian, xorshift32 } from '../../src/linalg/eighRandom.ts';
 
 export interface ComplexMatrix {
   n: number;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { diagonaliseTridiagonal, tridiagonalEigenvaluesRootFree } from '../../src/tb/eighTridiagonal.ts';
+import { diagonaliseTridiagonal, tridiagonalEigenvaluesRootFree } from '../../src/linalg/eighTridiagonal.ts';
 
 const ascending = (values: Float64Array): number[] => Array.from(values).sort((x, y) => x - y);
 

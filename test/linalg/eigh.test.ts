@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { HermitianEigensolver } from '../../src/tb/eigh.ts';
+import { HermitianEigensolver } from '../../src/linalg/eigh.ts';
 import {
   type ComplexMatrix, embeddingEigenvalues, frobenius, orthonormalityError, randomHermitian, randomUnitary,
   residual, trace, withSpectrum,

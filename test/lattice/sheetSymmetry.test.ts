@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { makePattern, patternToSheet } from '../../src/lattice/pattern.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
-import { sheetSymmetry } from '../../src/substrate/sheetSymmetry.ts';
+import { sheetSymmetry } from '../../src/lattice/sheetSymmetry.ts';
 
 describe('sheetSymmetry(sheet)', () => {
   it('the honeycomb has 6mm: rotations by 60°…300°, six mirror lines 30° apart (analytic)', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { formUnitary } from '../../src/tb/eighBackTransform.ts';
-import { HermitianTridiagonaliser } from '../../src/tb/eighHouseholder.ts';
+import { formUnitary } from '../../src/linalg/eighBackTransform.ts';
+import { HermitianTridiagonaliser } from '../../src/linalg/eighHouseholder.ts';
 import { frobenius, randomHermitian } from './eighChecks.ts';
 
 /** (QᴴHQ)_{rc} for Q complex interleaved and H split. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fillRandomHermitian, xorshift32 } from '../../src/tb/eighRandom.ts';
+import { fillRandomHermitian, xorshift32 } from '../../src/linalg/eighRandom.ts';
 
 describe('xorshift32(seed)', () => {
   it('is deterministic per seed and stays in [0, 1)', () => {

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { HermitianEigensolver } from '../../src/tb/eigh.ts';
+import { HermitianEigensolver } from '../../src/linalg/eigh.ts';
 import {
   type ComplexMatrix, frobenius, orthonormalityError, randomHermitian, residual, shiftedEmbeddingEigenvalues, trace,
 } from './eighChecks.ts';

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { HermitianEigensolver } from '../../src/tb/eigh.ts';
+import { HermitianEigensolver } from '../../src/linalg/eigh.ts';
 import { frobenius, orthonormalityError, randomHermitian, residual } from './eighChecks.ts';
 
 // Edge scales: entries from subnormal to 1e300 and matrices mixing entries 2^−600 below the rest, where squares

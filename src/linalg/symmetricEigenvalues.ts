@@ -1,0 +1,219 @@
+/**
+ * Eigenvalues of a real symmetric matrix: Householder reduction to tridiagonal form (Golub & Van Loan, Matrix
+ * Computations, 4th ed., Algorithm 8.3.1), then the root-free QR of eighTridiagonal.ts.
+ *
+ * Why a real kernel beside the complex one: a Bloch Hamiltonian that can be made real (a sheet with a 2-fold axis,
+ * src/tb/realForm.ts) costs a quarter of the multiplications of the complex reduction.
+ *
+ * Layout: n×n row-major; only the lower triangle (c ≤ r) is read, the input is untouched.
+ * Each step k applies the reflector P = I − τ·u·uᵀ on indices k+1…n−1 to the trailing block, A₂₂ ← P·A₂₂·P =
+ * A₂₂ − u·wᵀ − w·uᵀ with p = τ·A₂₂·u, w = p − (τ·pᵀu/2)·u, on the lower triangle.
+ */
+import { tridiagonalEigenvaluesRootFree } from './eighTridiagonal.ts';
+
+/** The largest entry is brought into [2^−1, 1) by a power of two, so squares neither overflow nor underflow. */
+function powerOfTwoBelow(x: number): number {
+  return 2 ** Math.ceil(Math.log2(x));
+}
+
+/**
+ * Eigenvalues of n×n real symmetric matrices with workspaces preallocated for one n; calls allocate nothing.
+ * Ascending output. An infinite or NaN entry, or a QR iteration that fails to converge, gives NaN everywhere —
+ * the sentinel of HermitianEigensolver; it never throws.
+ */
+export class SymmetricEigenvalues {
+  readonly n: number;
+  private readonly work: Float64Array;
+  // Reflectors of the current and the next step (swapped each step), the rank-2 vector w, the product q = A₂₂·v.
+  private readonly u: Float64Array;
+  private readonly v: Float64Array;
+  private readonly w: Float64Array;
+  private readonly q: Float64Array;
+  private readonly diag: Float64Array;
+  private readonly offSquared: Float64Array;
+
+  constructor(n: number) {
+    this.n = n;
+    this.work = new Float64Array(n * n);
+    this.u = new Float64Array(n);
+    this.v = new Float64Array(n);
+    this.w = new Float64Array(n);
+    this.q = new Float64Array(n);
+    this.diag = new Float64Array(n);
+    this.offSquared = new Float64Array(n);
+  }
+
+  /** Ascending eigenvalues of `matrix` into out (length ≥ n); returns out. */
+  eigenvalues(matrix: Float64Array, out: Float64Array): Float64Array {
+    const n = this.n;
+    if (n === 0) return out;
+    let largest = 0;
+    for (let r = 0; r < n; r++) {
+      for (let i = r * n, end = i + r + 1; i < end; i++) {
+        const a = Math.abs(matrix[i]);
+        if (!(a <= largest)) largest = a; // also catches NaN, which then stays
+      }
+    }
+    if (!Number.isFinite(largest)) return out.fill(NaN, 0, n);
+    const scale = largest > 0 ? powerOfTwoBelow(largest) : 1;
+    const work = this.work;
+    const inverse = 1 / scale;
+    for (let i = 0; i < n * n; i++) work[i] = matrix[i] * inverse;
+    this.reduce();
+    const diag = this.diag;
+    if (!tridiagonalEigenvaluesRootFree(diag, this.offSquared, n)) return out.fill(NaN, 0, n);
+    // Insertion sort: n is small and deflated blocks come out partly ordered.
+    for (let i = 0; i < n; i++) {
+      const value = diag[i] * scale;
+      let j = i - 1;
+      while (j >= 0 && out[j] > value) {
+        out[j + 1] = out[j];
+        j--;
+      }
+      out[j + 1] = value;
+    }
+    return out;
+  }
+
+  /**
+   * Tridiagonalises `work` (lower triangle) in place: diag and offSquared (T[k+1][k]², last entry 0).
+   * The rank-2 update of step k and the product A₂₂·v of step k+1 share one pass over the triangle (column k+1
+   * is updated first, so the next reflector v is known before the pass): typed-array accesses, not flops,
+   * bound these loops in V8, so one pass instead of two is what pays.
+   */
+  private reduce(): void {
+    const { n, work, diag, offSquared } = this;
+    let u = this.u;
+    let v = this.v;
+    const w = this.w;
+    const q = this.q;
+    let tau = n >= 3 ? this.reflector(0, u) : 0;
+    if (tau !== 0) product(n, work, u, q, 1);
+    for (let k = 0; k + 2 < n; k++) {
+      diag[k] = work[k * n + k];
+      const start = k + 1;
+      if (tau !== 0) {
+        // w = τ·q − (τ²·qᵀu/2)·u, then column `start` of A₂₂ updated ahead of the pass.
+        let qu = 0;
+        for (let i = start; i < n; i++) qu += q[i] * u[i];
+        const half = 0.5 * tau * tau * qu;
+        for (let i = start; i < n; i++) w[i] = tau * q[i] - half * u[i];
+        const us = u[start];
+        const ws = w[start];
+        for (let i = start; i < n; i++) work[i * n + start] -= u[i] * ws + w[i] * us;
+      }
+      const nextTau = k + 3 < n ? this.reflector(start, v) : 0;
+      if (tau !== 0) updateAndProduct(n, work, u, w, v, q, start + 1, nextTau !== 0);
+      else if (nextTau !== 0) product(n, work, v, q, start + 1);
+      [u, v] = [v, u];
+      tau = nextTau;
+    }
+    if (n >= 2) {
+      diag[n - 2] = work[(n - 2) * n + n - 2];
+      const last = work[(n - 1) * n + n - 2];
+      offSquared[n - 2] = last * last;
+    }
+    diag[n - 1] = work[n * n - 1];
+    offSquared[n - 1] = 0;
+  }
+
+  /**
+   * The reflector of column `col` (rows col+1…n−1) into `out`: v = x − β·e₁, β = −sign(x₀)·‖x‖ (no cancellation
+   * in v₀), vᵀv = 2α(α + |x₀|) so τ = 1/(α(α + |x₀|)). Sets offSquared[col] = β². Returns τ, or 0 when the column
+   * is already reduced (nothing below its first sub-diagonal entry).
+   */
+  private reflector(col: number, out: Float64Array): number {
+    const { n, work } = this;
+    let norm2 = 0;
+    for (let i = col + 1; i < n; i++) {
+      const x = work[i * n + col];
+      norm2 += x * x;
+      out[i] = x;
+    }
+    const x0 = out[col + 1];
+    this.offSquared[col] = norm2;
+    if (norm2 === x0 * x0) return 0;
+    const alpha = Math.sqrt(norm2);
+    out[col + 1] = x0 >= 0 ? x0 + alpha : x0 - alpha;
+    return 1 / (alpha * (alpha + Math.abs(x0)));
+  }
+}
+
+/** q = A·v over indices from…n−1, from the lower triangle: row i gives q_i += A_ij·v_j and q_j += A_ij·v_i (j < i). */
+function product(n: number, work: Float64Array, v: Float64Array, q: Float64Array, from: number): void {
+  q.fill(0, from, n);
+  for (let i = from; i < n; i++) {
+    const row = i * n;
+    const vi = v[i];
+    let sum = 0;
+    for (let j = from; j < i; j++) {
+      const a = work[row + j];
+      sum += a * v[j];
+      q[j] += a * vi;
+    }
+    q[i] += sum + work[row + i] * vi;
+  }
+}
+
+/**
+ * A ← A − u·wᵀ − w·uᵀ over indices from…n−1 (lower triangle), and, when `withProduct`, q = A·v on the updated
+ * entries in the same pass.
+ */
+function updateAndProduct(
+  n: number, work: Float64Array, u: Float64Array, w: Float64Array, v: Float64Array, q: Float64Array,
+  from: number, withProduct: boolean,
+): void {
+  if (!withProduct) {
+    for (let i = from; i < n; i++) {
+      const row = i * n;
+      const ui = u[i];
+      const wi = w[i];
+      for (let j = from; j <= i; j++) work[row + j] -= ui * w[j] + wi * u[j];
+    }
+    return;
+  }
+  q.fill(0, from, n);
+  let i = from;
+  // Rows in pairs: each load of u_j, w_j, v_j and each update of q_j serves two matrix entries.
+  for (; i + 1 < n; i += 2) {
+    const row0 = i * n;
+    const row1 = row0 + n;
+    const u0 = u[i], w0 = w[i], v0 = v[i];
+    const u1 = u[i + 1], w1 = w[i + 1], v1 = v[i + 1];
+    let sum0 = 0;
+    let sum1 = 0;
+    for (let j = from; j < i; j++) {
+      const uj = u[j], wj = w[j], vj = v[j];
+      const a0 = work[row0 + j] - (u0 * wj + w0 * uj);
+      const a1 = work[row1 + j] - (u1 * wj + w1 * uj);
+      work[row0 + j] = a0;
+      work[row1 + j] = a1;
+      sum0 += a0 * vj;
+      sum1 += a1 * vj;
+      q[j] += a0 * v0 + a1 * v1;
+    }
+    // The 2×2 corner: (i, i), (i+1, i), (i+1, i+1).
+    const d0 = work[row0 + i] - 2 * u0 * w0;
+    const c = work[row1 + i] - (u1 * w0 + w1 * u0);
+    const d1 = work[row1 + i + 1] - 2 * u1 * w1;
+    work[row0 + i] = d0;
+    work[row1 + i] = c;
+    work[row1 + i + 1] = d1;
+    q[i] += sum0 + d0 * v0 + c * v1;
+    q[i + 1] += sum1 + c * v0 + d1 * v1;
+  }
+  if (i < n) {
+    const row = i * n;
+    const ui = u[i], wi = w[i], vi = v[i];
+    let sum = 0;
+    for (let j = from; j < i; j++) {
+      const a = work[row + j] - (ui * w[j] + wi * u[j]);
+      work[row + j] = a;
+      sum += a * v[j];
+      q[j] += a * vi;
+    }
+    const d = work[row + i] - 2 * ui * wi;
+    work[row + i] = d;
+    q[i] += sum + d * vi;
+  }
+}
