@@ -1,8 +1,9 @@
 /** Shared pieces of the calibrate tests: reference bands made by the model, invented parameter sets, noise. */
 import { matchBands, type BandMatch } from '../../../src/learn/calibrate/bandMatch.ts';
 import type { CalibrationSheet } from '../../../src/learn/calibrate/calibrate.ts';
-import { ParametricBands, type BandBlock } from '../../../src/learn/calibrate/parametricBands.ts';
-import { parameterVector } from '../../../src/learn/calibrate/modelParameters.ts';
+import type { BandBlock } from '../../../src/learn/calibrate/parametricBands.ts';
+import { computeBands } from '../../../src/tb/bands.ts';
+import { TightBindingModel } from '../../../src/tb/model.ts';
 import type { ReferenceBands } from '../../../src/learn/calibrate/referenceBands.ts';
 import type { Sheet } from '../../../src/lattice/sheet.ts';
 import { xorshift32 } from '../../../src/linalg/eighRandom.ts';
@@ -37,12 +38,15 @@ export const BUCKLED: Sheet = {
   atoms: [[0.1666667, 0.5, 0], [0.3333333, 0, 0.25], [0.5, 0.5, 0], [0.6666667, 0, 0], [0.8333333, 0.5, 0]],
 };
 
-/** Bands of `set` on the sheet's automatic path, `offset` added (a reference's own zero), optional noise. */
-export function modelReference(sheet: Sheet, set: ParameterSet, options: { points?: number; block?: BandBlock; offset?: number; noise?: number; seed?: number } = {}): ReferenceBands {
+/**
+ * Bands of `set` on the sheet's automatic path, `offset` added (a reference's own zero), optional noise. Made by
+ * src/tb (TightBindingModel, computeBands), not by the fit's own ParametricBands, so a fit-back checks the two
+ * against each other as well.
+ */
+export function modelReference(sheet: Sheet, set: ParameterSet, options: { points?: number; offset?: number; noise?: number; seed?: number } = {}): ReferenceBands {
   const path = autoPath(sheet.cell, options.points ?? 50);
-  const bands = new ParametricBands(sheet, path.kpoints, { cutoff: set.cutoff, d0: set.d0, block: options.block ?? 'full' });
-  const energies = new Float64Array(bands.count * bands.bands);
-  bands.evaluate(parameterVector(set, set.d0), energies, null);
+  const bands = computeBands(new TightBindingModel(sheet, set), path.kpoints);
+  const energies = bands.energies;
   const uniform = xorshift32(options.seed ?? 1);
   const normal = () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
   for (let i = 0; i < energies.length; i++) energies[i] += (options.offset ?? 0) + (options.noise ? options.noise * normal() : 0);

@@ -60,7 +60,7 @@ describe('levenbergMarquardt(problem, x0, options)', () => {
   });
 
   it('returns x0 with reason "not-finite" when S(x0) is NaN (the documented sentinel), never throws', () => {
-    const problem: LeastSquaresProblem = { parameters: 1, residuals: 1, evaluate: (x, r) => void (r[0] = NaN) };
+    const problem: LeastSquaresProblem = { parameters: 1, residuals: 1, evaluate: (_x, r) => void (r[0] = NaN) };
     const result = levenbergMarquardt(problem, Float64Array.of(3));
     expect(result.reason).toBe('not-finite');
     expect(result.converged).toBe(false);
