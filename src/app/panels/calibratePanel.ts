@@ -17,6 +17,7 @@ import type { FitInput, FitOutput, LoadedReference } from '../calibrateJobs.ts';
 import { download, svgText, svgToPng } from '../download.ts';
 import { parameterSet } from '../state.ts';
 import { Cancelled, WorkerLane } from '../worker/client.ts';
+import { readField } from './readField.ts';
 
 const $ = <T extends Element>(doc: Document, selector: string) => doc.querySelector<T>(selector)!;
 
@@ -173,19 +174,7 @@ export class CalibratePanel {
   /** Reads the fields one by one: a refused one is outlined and named, and the fit is not run. */
   private readFields(): Omit<FitInput, 'sheet' | 'sheetLabel' | 'reference' | 'referenceLabel' | 'start' | 'fittedAt'> | undefined {
     const errors: string[] = [];
-    const read = <T>(name: string, reader: (text: string) => T): T | undefined => {
-      const input = this.field(name);
-      try {
-        const value = reader(input.value);
-        input.classList.remove('invalid');
-        return value;
-      } catch (error) {
-        if (!(error instanceof ValidationError)) throw error;
-        input.classList.add('invalid');
-        errors.push(error.message);
-        return undefined;
-      }
-    };
+    const read = <T>(name: string, reader: (text: string) => T): T | undefined => readField(this.field(name), reader, errors);
     const block = read('block', readBlock);
     const modelBands = read('modelBands', (text) => readBandRange(FIELDS.modelBands, text));
     const referenceBands = read('referenceBands', (text) => readBandRange(FIELDS.referenceBands, text));

@@ -6,7 +6,6 @@
  */
 import { stmPictureFigure } from '../../figures/stmPicture.ts';
 import type { FigureStyle, StmPictureData } from '../../figures/types.ts';
-import { ValidationError } from '../../validate/invalid.ts';
 import type { App } from '../app.ts';
 import { parameterSet, type StmState } from '../state.ts';
 import {
@@ -15,6 +14,7 @@ import {
 import { SUBSTRATES } from '../../substrate/substrates.ts';
 import { tipLine, type CandidateFit, type MatchOutput, type MeasuredOutput, type RankedCandidate, type SimulateOutput } from '../stmJobs.ts';
 import { Cancelled, WorkerLane } from '../worker/client.ts';
+import { readField } from './readField.ts';
 
 const $ = <T extends Element>(doc: Document, selector: string) => doc.querySelector<T>(selector)!;
 
@@ -68,16 +68,7 @@ export class StmPanel {
 
   /** Runs a field reader: a refusal is named (panel line and notice), the field outlined, its text kept. */
   private read<T>(input: HTMLInputElement, reader: (text: string) => T, errors: string[]): T | undefined {
-    try {
-      const value = reader(input.value);
-      input.classList.remove('invalid');
-      return value;
-    } catch (error) {
-      if (!(error instanceof ValidationError)) throw error;
-      input.classList.add('invalid');
-      errors.push(error.message);
-      return undefined;
-    }
+    return readField(input, reader, errors);
   }
 
   private showErrors(errors: string[], after = 'the last good value is used'): void {
