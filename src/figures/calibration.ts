@@ -13,6 +13,8 @@ import type { CalibrationFigureData, FigureOptions } from './types.ts';
 
 /** Most reference dots drawn; beyond, every s-th k-point is drawn (said in the description). */
 const MAX_DOTS = 12_000;
+/** Steps of a dot's opacity (its weight in the fit, 0 … 1). */
+const WEIGHT_LEVELS = 8;
 
 const fixed = (v: number) => Math.round(v * 100) / 100;
 
@@ -84,22 +86,27 @@ export function calibrationFigure(data: CalibrationFigureData, options: FigureOp
     if (!matched) path.attr('stroke-dasharray', '3 2').attr('data-unmatched', '');
   }
 
-  // Reference energies: dots, opacity by weight where matched; hollow where not matched.
+  // Reference energies: dots, opacity by weight where matched (in WEIGHT_LEVELS steps, one path per step, so a
+  // large file is a few elements, not thousands); hollow where not matched.
   const radius = lk.publication ? 2.2 : 1.8;
-  const reference = inside.append('g').attr('data-layer', 'reference');
+  const dot = (cx: number, cy: number) => `M${fixed(cx - radius)},${cy}a${radius},${radius} 0 1,0 ${2 * radius},0a${radius},${radius} 0 1,0 ${-2 * radius},0`;
+  const levels: string[] = Array.from({ length: WEIGHT_LEVELS + 1 }, () => '');
+  let unmatched = '';
   let dots = 0;
   for (let k = 0; k < data.count; k += stride) {
     for (let b = 0; b < data.referenceBands; b++) {
       const j = b - data.match.referenceFirst;
-      const dot = reference.append('circle').attr('cx', xs[k]).attr('cy', fixed(y(data.referenceEnergies[k * data.referenceBands + b]))).attr('r', radius);
-      if (j >= 0 && j < data.match.count) {
-        dot.attr('fill', REFERENCE_COLOUR).attr('opacity', fixed(0.25 + 0.75 * data.weights[k * data.match.count + j]));
-      } else {
-        dot.attr('fill', 'none').attr('stroke', MUTED).attr('stroke-width', 0.7).attr('data-unmatched', '');
-      }
+      const d = dot(xs[k], fixed(y(data.referenceEnergies[k * data.referenceBands + b])));
+      if (j >= 0 && j < data.match.count) levels[Math.round(WEIGHT_LEVELS * data.weights[k * data.match.count + j])] += d;
+      else unmatched += d;
       dots++;
     }
   }
+  const reference = inside.append('g').attr('data-layer', 'reference').attr('fill', REFERENCE_COLOUR);
+  levels.forEach((d, level) => {
+    if (d !== '') reference.append('path').attr('data-weight', level / WEIGHT_LEVELS).attr('opacity', fixed(0.25 + (0.75 * level) / WEIGHT_LEVELS)).attr('d', d);
+  });
+  if (unmatched !== '') reference.append('path').attr('data-unmatched', '').attr('fill', 'none').attr('stroke', MUTED).attr('stroke-width', 0.7).attr('d', unmatched);
   frame.svg.attr('data-reference-dots', dots);
 
   plot.append('rect').attr('data-layer', 'frame').attr('width', width).attr('height', height).attr('fill', 'none').attr('stroke', INK).attr('stroke-width', 0.8);

@@ -40,14 +40,26 @@ describe('calibrationFigure(data, options)', () => {
   it('draws every reference energy as a dot (matched ones filled), every model band as a path (unmatched ones marked), E_F and the rms', () => {
     const svg = calibrationFigure(data, { document });
     expect(svg.getAttribute('data-figure')).toBe('calibration');
-    expect(svg.querySelectorAll('g[data-layer="reference"] circle').length).toBe(24 * 12);
-    expect(svg.querySelectorAll('g[data-layer="reference"] circle[data-unmatched]').length).toBe(0);
+    expect(Number(svg.getAttribute('data-reference-dots'))).toBe(24 * 12);
+    // One arc pair per dot: every dot drawn once, in the path of its weight.
+    const arcs = [...svg.querySelectorAll('g[data-layer="reference"] path')].reduce((n, p) => n + (p.getAttribute('d')!.match(/M/g) ?? []).length, 0);
+    expect(arcs).toBe(24 * 12);
+    expect(svg.querySelectorAll('g[data-layer="reference"] path[data-unmatched]').length).toBe(0);
     expect(svg.querySelectorAll('g[data-layer="model"] path').length).toBe(16);
     expect(svg.querySelectorAll('g[data-layer="model"] path[data-unmatched]').length).toBe(4);
     expect(svg.querySelector('line[data-fermi]')?.getAttribute('data-fermi')).toBe('1.5');
     expect(Number(svg.getAttribute('data-rms'))).toBeCloseTo(data.rms, 12);
     expect(svg.querySelector('text[data-role="statistics"]')?.textContent).toMatch(/not a prediction/);
     expect(svg.querySelector('text[data-role="demo"]')).toBeNull();
+  });
+
+  it('draws reference bands the fit did not match as hollow dots', () => {
+    const { result, reference } = smallFit();
+    const wider = prepareCalibration(result, 0, reference);
+    const shifted = { ...wider, match: { ...wider.match, referenceFirst: 2, count: 10 }, weights: wider.weights.subarray(0, 24 * 10) };
+    const svg = calibrationFigure(shifted, { document });
+    const unmatched = svg.querySelector('g[data-layer="reference"] path[data-unmatched]')!;
+    expect((unmatched.getAttribute('d')!.match(/M/g) ?? []).length).toBe(24 * 2);
   });
 
   it('says DEMO on the figure when the reference is DEMO data', () => {
