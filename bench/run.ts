@@ -11,6 +11,7 @@ import { benchTightBinding } from './tb.ts';
 import { benchMeshDensity } from './meshDensity.ts';
 import { benchStm } from './stm.ts';
 import { benchUnfold } from './unfold.ts';
+import { benchCalibrate } from './calibrate.ts';
 
 const suites: [string, () => Promise<void>][] = [
   ['enumeration', benchEnumerate],
@@ -22,6 +23,7 @@ const suites: [string, () => Promise<void>][] = [
   ['STM pictures', benchStm],
   ['cluster expansion', benchExpansion],
   ['unfolding', benchUnfold],
+  ['calibrate', benchCalibrate],
 ];
 
 const only = process.argv[2];

@@ -28,12 +28,15 @@ export * from './expansion/index.ts';
 export * from './io/energiesFile.ts';
 // Metal substrates: coincidence fits and electron transfer.
 export * from './substrate/index.ts';
+// Parameters fitted to the user's own reference bands (calibrate).
+export * from './learn/calibrate/index.ts';
 // Input and output.
 export { ValidationError, invalid, fieldPath } from './validate/invalid.ts';
 export { parseParameterFile } from './io/paramsFile.ts';
 export * from './io/sheetFile.ts';
 export * from './io/sheetLimits.ts';
 export { parseKpointsText, parseKpointsObject } from './io/kpointsFile.ts';
+export { parseReferenceBandsText, validateReferenceBands, REFERENCE_LIMITS } from './io/referenceBandsFile.ts';
 export { sheetToCif } from './io/cif.ts';
 export { sheetToXyz } from './io/xyz.ts';
 export * from './io/sheetJson.ts';

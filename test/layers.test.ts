@@ -19,6 +19,7 @@ const LAYERS: Record<string, number> = {
   substrate: 4,
   stm: 4,
   expansion: 4,
+  learn: 4,
   io: 5,
   figures: 6,
   cli: 7,

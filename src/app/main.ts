@@ -15,6 +15,7 @@ import { MetalPanel } from './panels/metalPanel.ts';
 import { StmPanel } from './panels/stmPanel.ts';
 import { EnergiesPanel } from './panels/energiesPanel.ts';
 import { UnfoldPanel } from './panels/unfoldPanel.ts';
+import { CalibratePanel } from './panels/calibratePanel.ts';
 import { defaultState, readHash, type ViewState } from './state.ts';
 import { ValidationError } from '../validate/invalid.ts';
 
@@ -72,6 +73,7 @@ wireExports(app, document, metal, stm);
 await nextTask();
 const energies = new EnergiesPanel(app, document, () => new Worker(new URL('./worker/expansionWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-expansion' }));
 const unfold = new UnfoldPanel(app, document, () => new Worker(new URL('./worker/unfoldWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-unfold' }));
+const calibrate = new CalibratePanel(app, document, () => new Worker(new URL('./worker/calibrateWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-calibrate' }));
 
 if (opensDemo) {
   const note = $<HTMLElement>('#demo-note');
@@ -126,8 +128,9 @@ window.addEventListener('hashchange', () => {
 });
 
 // For the browser test and the benchmark it prints: the controller and its timings.
-(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal, stm, energies, unfold };
+(window as unknown as { lacuna: unknown }).lacuna = { app, candidates, metal, stm, energies, unfold, calibrate };
 
 void app.start().then(() => {
   if (opensDemo) void candidates.search();
+  void calibrate.start();
 });

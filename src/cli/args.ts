@@ -17,22 +17,30 @@ export type FlagKind =
   | { kind: 'text' }
   | { kind: 'shard' };
 
-export type FlagSpec = FlagKind & { help: string; placeholder?: string };
+/** `repeatable`: may be given more than once; every value is kept in order in ParsedArgs.repeated. */
+export type FlagSpec = FlagKind & { help: string; placeholder?: string; repeatable?: boolean };
 
 export interface CommandSpec {
   name: string;
   summary: string;
-  /** Positional arguments in order; a trailing `?` in the name marks one optional. */
-  positionals: readonly { name: string; help: string; optional?: boolean }[];
+  /** Positional arguments in order; the last one may be `repeatable` (one or more, at most MAX_REPEATS). */
+  positionals: readonly { name: string; help: string; optional?: boolean; repeatable?: boolean }[];
   flags: Readonly<Record<string, FlagSpec>>;
 }
 
 export type FlagValue = boolean | number | string | [number, number] | number[] | { index: number; count: number };
 
 export interface ParsedArgs {
+  /** The (first) value of each positional. */
   positionals: Record<string, string>;
+  /** The (first) value of each flag given. */
   flags: Record<string, FlagValue>;
+  /** Every value, in order, of each repeatable flag or positional given. */
+  repeated: Record<string, FlagValue[]>;
 }
+
+/** Most values a repeatable flag or positional takes. */
+export const MAX_REPEATS = 16;
 
 /** Longest flag value we look at; anything longer is refused before parsing. */
 const MAX_VALUE_LENGTH = 4096;
@@ -128,6 +136,7 @@ function parseValue(flag: string, spec: FlagSpec, text: string): FlagValue {
 /** Parses argv (without the command name) against a command's spec. */
 export function parseArgs(spec: CommandSpec, argv: readonly string[]): ParsedArgs {
   const flags: Record<string, FlagValue> = {};
+  const repeated: Record<string, FlagValue[]> = {};
   const given: string[] = [];
   for (let at = 0; at < argv.length; at++) {
     const word = argv[at];
@@ -141,7 +150,7 @@ export function parseArgs(spec: CommandSpec, argv: readonly string[]): ParsedArg
         // Name the flag itself when it looks like one; otherwise the field is just "option".
         invalid(/^--[A-Za-z][\w-]*$/.test(flag) ? flag : 'option', word, `unknown option for ${spec.name}; known: ${known}`);
       }
-      if (Object.hasOwn(flags, name)) invalid(flag, word, 'given twice');
+      if (Object.hasOwn(flags, name) && !flagSpec.repeatable) invalid(flag, word, 'given twice');
       let text: string;
       if (flagSpec.kind === 'switch') {
         if (equals >= 0) invalid(flag, word, 'takes no value');
@@ -152,7 +161,13 @@ export function parseArgs(spec: CommandSpec, argv: readonly string[]): ParsedArg
         if (at + 1 >= argv.length) invalid(flag, undefined, `needs a value${flagSpec.placeholder ? ` (${flagSpec.placeholder})` : ''}`);
         text = argv[++at];
       }
-      flags[name] = parseValue(flag, flagSpec, text);
+      const value = parseValue(flag, flagSpec, text);
+      if (flagSpec.repeatable) {
+        const list = (repeated[name] ??= []);
+        if (list.length >= MAX_REPEATS) invalid(flag, text, `given more than ${MAX_REPEATS} times`);
+        list.push(value);
+      }
+      if (!Object.hasOwn(flags, name)) flags[name] = value;
     } else if (/^-[A-Za-z]/.test(word)) {
       // A single-dash word is a mistyped option, not a positional argument (a file named so can be given as ./-m).
       const known = Object.keys(spec.flags).map((f) => `--${f}`).join(', ');
@@ -163,6 +178,15 @@ export function parseArgs(spec: CommandSpec, argv: readonly string[]): ParsedArg
   }
   const positionals: Record<string, string> = {};
   const slots = spec.positionals;
+  const last = slots[slots.length - 1];
+  if (last?.repeatable && given.length > slots.length) {
+    const extra = given.slice(slots.length - 1);
+    if (extra.length > MAX_REPEATS) invalid(last.name, extra[MAX_REPEATS], `at most ${MAX_REPEATS} values`);
+    repeated[last.name] = extra;
+    given.length = slots.length;
+  } else if (last?.repeatable && given.length === slots.length) {
+    repeated[last.name] = [given[slots.length - 1]];
+  }
   if (given.length > slots.length) {
     invalid(slots.length ? 'arguments' : 'argument', given[slots.length], `${spec.name} takes ${slots.length ? slots.map((s) => s.name).join(' ') : 'no positional arguments'}`);
   }
@@ -170,16 +194,17 @@ export function parseArgs(spec: CommandSpec, argv: readonly string[]): ParsedArg
     if (index < given.length) positionals[slot.name] = given[index];
     else if (!slot.optional) invalid(slot.name, undefined, `${spec.name} needs ${slot.name}: ${slot.help}`);
   });
-  return { positionals, flags };
+  return { positionals, flags, repeated };
 }
 
 /** Help text for one command, generated from its spec. */
 export function commandHelp(spec: CommandSpec): string {
-  const lines = [`lacuna ${spec.name} ${spec.positionals.map((p) => (p.optional ? `[${p.name}]` : p.name)).join(' ')}`.trimEnd(), `  ${spec.summary}`];
-  for (const p of spec.positionals) lines.push(`  ${p.name.padEnd(22)} ${p.help}`);
+  const shown = (p: CommandSpec['positionals'][number]) => `${p.name}${p.repeatable ? '...' : ''}`;
+  const lines = [`lacuna ${spec.name} ${spec.positionals.map((p) => (p.optional ? `[${shown(p)}]` : shown(p))).join(' ')}`.trimEnd(), `  ${spec.summary}`];
+  for (const p of spec.positionals) lines.push(`  ${shown(p).padEnd(22)} ${p.help}`);
   for (const [name, flag] of Object.entries(spec.flags)) {
     const left = `--${name}${flag.placeholder ? ` ${flag.placeholder}` : ''}`;
-    lines.push(`  ${left.padEnd(22)} ${flag.help}`);
+    lines.push(`  ${left.padEnd(22)} ${flag.help}${flag.repeatable ? ' (may be repeated)' : ''}`);
   }
   return lines.join('\n');
 }

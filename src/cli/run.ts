@@ -6,6 +6,7 @@ import { ValidationError, invalid } from '../validate/invalid.ts';
 import { commandHelp } from './args.ts';
 import { bandsCommand } from './commands/bands.ts';
 import { bondingCommand } from './commands/bonding.ts';
+import { calibrateCommand } from './commands/calibrate.ts';
 import { benchCommand } from './commands/bench.ts';
 import { dosCommand } from './commands/dos.ts';
 import { enumerateCommand } from './commands/enumerate.ts';
@@ -28,6 +29,7 @@ import { PIPE_CLOSED_STATUS, PipeClosed, type CliIo, type Command } from './io.t
 export const COMMANDS: readonly Command[] = [
   enumerateCommand, geometryCommand, bandsCommand, fillCommand, scanCommand, dosCommand, bondingCommand, rankCommand, exportCommand,
   unfoldCommand, plotCommand, transferCommand, fitCommand, metalsCommand, stmCommand, matchCommand, expandCommand, presetsCommand, benchCommand,
+  calibrateCommand,
 ];
 
 function overview(): string {

@@ -14,6 +14,8 @@ export * from './prepareEnergyHull.ts';
 export { unfoldedFigure } from './unfolded.ts';
 export { cutFigure } from './cut.ts';
 export * from './prepareUnfold.ts';
+export { calibrationFigure } from './calibration.ts';
+export * from './prepareCalibration.ts';
 export { svgText, serializeFigure } from './serialize.ts';
 export { SIGMA_COLOUR, PI_COLOUR, shareColour, phaseColour, densityColour } from './palette.ts';
 export { FONT_FAMILY } from './look.ts';

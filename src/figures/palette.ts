@@ -27,6 +27,8 @@ export const HOLE_FILL = '#f4e3b5';
 export const TOTAL_COLOUR = INK;
 /** Opacity of empty states (above E_F). */
 export const EMPTY_OPACITY = 0.3;
+/** Reference energies (the user's own calculation) in the calibration figure: a teal, apart from σ blue, π amber and E_F red. */
+export const REFERENCE_COLOUR = '#138a72';
 
 const blend = interpolateLab(PI_COLOUR, SIGMA_COLOUR);
 

@@ -164,6 +164,40 @@ export interface EtaDeltaData {
 }
 
 /**
+ * A calibration drawn: the fitted model's bands against the reference bands, along the reference's own k-points
+ * (prepareCalibration in src/figures/prepareCalibration.ts). Energies on the reference's scale (eV), k-major.
+ */
+export interface CalibrationFigureData {
+  sheetLabel: string;
+  referenceLabel: string;
+  /** Name of the fitted set. */
+  parameters: string;
+  /** A warning line when the reference is DEMO data. */
+  demo?: string;
+  count: number;
+  /** Distance along the reference's k-points (Å⁻¹); a jump (another branch of the path) does not advance it. */
+  distance: Float64Array;
+  /** Special points, and the indices where the path jumps. */
+  labels: { label: string; index: number }[];
+  breaks: number[];
+  referenceBands: number;
+  referenceEnergies: Float64Array;
+  modelBands: number;
+  modelEnergies: Float64Array;
+  /** The matched runs, 0-based: model band modelFirst + j ↔ reference band referenceFirst + j. */
+  match: { modelFirst: number; referenceFirst: number; count: number };
+  /** The weight of every matched reference energy (count × match.count). */
+  weights: Float64Array;
+  /** E_F of the reference (eV, its scale), when known. */
+  fermi: number | null;
+  rms: number;
+  maxError: number;
+  points: number;
+  /** 'full', or the σ or π block of a planar sheet. */
+  block: string;
+}
+
+/**
  * An STM picture, simulated or measured, ready to draw: its 8-bit grey PNG (row 0 at the top) and what to draw over
  * them, in Å in the picture's frame (x to the right, y up, from the bottom-left corner of the picture).
  */

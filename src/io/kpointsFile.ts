@@ -22,17 +22,21 @@ export function parseKpointsText(text: string, origin = 'kpoints'): Float64Array
 export function parseKpointsObject(value: unknown): Float64Array {
   if (typeof value !== 'object' || value === null || Array.isArray(value)) invalid('kpoints file', value, 'must be an object {"kpoints": [[kx, ky]]}');
   for (const key of Object.keys(value)) if (key !== 'kpoints') invalid(fieldPath('', key), (value as Record<string, unknown>)[key], 'unknown field; a k-points file has only "kpoints"');
-  const list = (value as { kpoints?: unknown }).kpoints;
-  if (!Array.isArray(list)) invalid('kpoints', list, 'must be a list of [kx, ky]');
-  if (list.length === 0) invalid('kpoints', list, 'empty');
-  if (list.length > MAX_KPOINTS) invalid('kpoints', `${list.length} points`, `at most ${MAX_KPOINTS}`);
+  return readKpointList((value as { kpoints?: unknown }).kpoints, 'kpoints');
+}
+
+/** A list of [kx, ky] (Å⁻¹) under `field`, checked point by point; returns kx, ky interleaved. */
+export function readKpointList(list: unknown, field: string): Float64Array {
+  if (!Array.isArray(list)) invalid(field, list, 'must be a list of [kx, ky]');
+  if (list.length === 0) invalid(field, list, 'empty');
+  if (list.length > MAX_KPOINTS) invalid(field, `${list.length} points`, `at most ${MAX_KPOINTS}`);
   const out = new Float64Array(2 * list.length);
   list.forEach((point: unknown, index: number) => {
-    if (!Array.isArray(point) || point.length !== 2) invalid(`kpoints[${index}]`, point, 'must be [kx, ky]');
+    if (!Array.isArray(point) || point.length !== 2) invalid(`${field}[${index}]`, point, 'must be [kx, ky]');
     for (let c = 0; c < 2; c++) {
       const k = point[c];
-      if (typeof k !== 'number' || !Number.isFinite(k)) invalid(`kpoints[${index}][${c}]`, k, 'not a finite number');
-      if (Math.abs(k) > MAX_K) invalid(`kpoints[${index}][${c}]`, k, `|k| above ${MAX_K} Å⁻¹`);
+      if (typeof k !== 'number' || !Number.isFinite(k)) invalid(`${field}[${index}][${c}]`, k, 'not a finite number');
+      if (Math.abs(k) > MAX_K) invalid(`${field}[${index}][${c}]`, k, `|k| above ${MAX_K} Å⁻¹`);
       out[2 * index + c] = k;
     }
   });

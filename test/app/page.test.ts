@@ -496,6 +496,39 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     expect(other.errors).toEqual([]);
   });
 
+  it('Fit to your bands: the DEMO fit at start, a bad file and a bad field refused by name with the fit kept, the fitted set kept as the user\'s own', async () => {
+    const { page, errors } = await openPage();
+    await page.waitForSelector('#calibrate-host svg[data-figure="calibration"]', { timeout: 30_000 });
+    const panel = page.locator('section.calibrate-panel');
+    expect(await page.locator('#calibrate-host text[data-role="demo"]').textContent()).toMatch(/^DEMO/);
+    expect(await page.locator('#calibrate-caveat').innerText()).toMatch(/interpolation of your own calculation.*not a prediction/s);
+    expect(await page.locator('#calibrate-table tbody tr').count()).toBe(7);
+    expect(await page.locator('#calibrate-summary').innerText()).toMatch(/^beta12 ← DEMO .*rms \d\.\d{3} eV/);
+    const figure = await page.locator('#calibrate-host svg').getAttribute('data-rms');
+    await panel.scrollIntoViewIfNeeded();
+    await panel.screenshot({ path: `${OUTPUT}/calibrate.png` });
+
+    await page.setInputFiles('#calibrate-file', { name: 'bad.json', mimeType: 'application/json', buffer: Buffer.from('{"kpoints": [], "energies": []}') });
+    await page.waitForFunction(() => document.querySelector('#calibrate-error')?.textContent !== '');
+    expect(await page.locator('#calibrate-error').innerText()).toBe('invalid kpoints: [] (empty; in the reference bands file "bad.json")');
+    expect(await page.locator('#calibrate-host svg').getAttribute('data-rms')).toBe(figure);
+
+    await page.fill('#calibrate-form input[name="modelBands"]', '0-5');
+    await page.dispatchEvent('#calibrate-form input[name="modelBands"]', 'change');
+    await page.waitForFunction(() => document.querySelector('#calibrate-form input[name="modelBands"]')?.classList.contains('invalid'));
+    expect(await page.locator('#calibrate-error').innerText()).toMatch(/^invalid model bands: "0-5" \(bands are numbered from 1/);
+    expect(await page.locator('#calibrate-host svg').getAttribute('data-rms')).toBe(figure);
+    await page.fill('#calibrate-form input[name="modelBands"]', '');
+    await page.dispatchEvent('#calibrate-form input[name="modelBands"]', 'change');
+    await page.waitForFunction(() => !document.querySelector('#calibrate-form input[name="modelBands"]')?.classList.contains('invalid'));
+
+    await page.click('#calibrate-keep');
+    await page.waitForFunction(() => document.querySelector('#params-select option:checked')?.textContent === 'yours: calibrated-beta12');
+    await page.waitForFunction(() => document.querySelector('#summary')?.textContent?.includes('parameters calibrated-beta12'));
+    await shot(page, 'calibrate-kept');
+    expect(errors).toEqual([]);
+  });
+
   it('computes a 48×48 DOS in the worker (benchmark figure)', async () => {
     const { page } = await openPage('#sheet=beta12&mesh=48');
     const seconds = await page.evaluate(() => (window as unknown as { lacuna: { app: { timings: { lastSpectraMs: number } } } }).lacuna.app.timings.lastSpectraMs / 1000);
