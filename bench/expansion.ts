@@ -6,10 +6,10 @@
  */
 import { readFileSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
-import { clusterSet } from '../src/expansion/clusters.ts';
-import { expandEnergies } from '../src/expansion/expand.ts';
-import { fitExpansion, isFitProblem } from '../src/expansion/fit.ts';
-import { predictStructures } from '../src/expansion/predict.ts';
+import { clusterSet } from '../src/learn/expansion/clusters.ts';
+import { expandEnergies } from '../src/learn/expansion/expand.ts';
+import { fitExpansion, isFitProblem } from '../src/learn/expansion/fit.ts';
+import { predictStructures } from '../src/learn/expansion/predict.ts';
 import { parseEnergiesText } from '../src/io/energiesFile.ts';
 
 function timed(label: string, task: () => string): void {

@@ -24,7 +24,7 @@ export * from './tb/index.ts';
 export { RealSymmetricEigensolver } from './linalg/eighReal.ts';
 export { timeEigenvalues } from './linalg/eighBench.ts';
 // The vacancy cluster expansion fitted to the user's energies, and its file.
-export * from './expansion/index.ts';
+export * from './learn/expansion/index.ts';
 export * from './io/energiesFile.ts';
 // Metal substrates: coincidence fits and electron transfer.
 export * from './substrate/index.ts';

@@ -18,7 +18,6 @@ const LAYERS: Record<string, number> = {
   tb: 3,
   substrate: 4,
   stm: 4,
-  expansion: 4,
   learn: 4,
   io: 5,
   figures: 6,

@@ -2,7 +2,7 @@
  * The Energies panel's fields as typed text → values, each read on its own with its label in the error
  * (`invalid <label>: <text> (<why>)`), so a bad field is named and its text kept.
  */
-import { MAX_PAIR_SHELLS, MAX_TRIPLET_SHELLS } from '../expansion/clusters.ts';
+import { MAX_PAIR_SHELLS, MAX_TRIPLET_SHELLS } from '../learn/expansion/clusters.ts';
 import { integer, integerRange } from './stmFields.ts';
 
 /** The labels the panel shows (and its errors and the core's refusals use; see ENERGIES_FIELDS). */

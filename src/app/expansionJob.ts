@@ -4,7 +4,7 @@
  * return what the panel shows — the figure's data, the ECIs, the hull with its chemical potentials, the
  * suggestions with their reasons, and each point's pattern, so that a click can show it on the sheet.
  */
-import { EXPANSION_CAVEAT, expandEnergies, type ClusterResult, type ExpansionFields } from '../expansion/expand.ts';
+import { EXPANSION_CAVEAT, expandEnergies, type ClusterResult, type ExpansionFields } from '../learn/expansion/expand.ts';
 import { patternLabel, prepareEnergyHull } from '../figures/prepareEnergyHull.ts';
 import type { EnergyHullData } from '../figures/types.ts';
 import { parseEnergiesText } from '../io/energiesFile.ts';

@@ -3,10 +3,10 @@
  * structured-cloneable, so the web view's expansion worker prepares it and the CLI (`expand --svg`) too.
  *
  * Energies are drawn relative to the straight line through the end points of the hull of the calculations: a
- * line a + bη added to every energy changes neither the hull nor any distance above it (src/expansion/hull.ts),
+ * line a + bη added to every energy changes neither the hull nor any distance above it (src/learn/expansion/hull.ts),
  * and without it the few meV per site that decide stability would hide under the eV per site that η costs.
  */
-import type { ExpansionResult } from '../expansion/expand.ts';
+import type { ExpansionResult } from '../learn/expansion/expand.ts';
 import { hnfRows } from '../lattice/pattern.ts';
 import type { Pattern } from '../lattice/sheet.ts';
 import type { EnergyHullData, EnergyHullPoint } from './types.ts';

@@ -8,7 +8,7 @@ import { headlessDocument } from '../../src/figures/headless.ts';
 import { findSheetPreset } from '../../src/lattice/presets.ts';
 import { findParameterPreset, type ParameterSet } from '../../src/tb/params.ts';
 import type { EnergyHullData, EtaDeltaData, SheetData, SpectraData } from '../../src/figures/types.ts';
-import { expandEnergies } from '../../src/expansion/expand.ts';
+import { expandEnergies } from '../../src/learn/expansion/expand.ts';
 import { prepareEnergyHull } from '../../src/figures/prepareEnergyHull.ts';
 import { parseEnergiesText } from '../../src/io/energiesFile.ts';
 import { SHEET_PRESETS } from '../../src/lattice/presets.ts';

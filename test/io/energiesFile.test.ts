@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { expandEnergies } from '../../src/expansion/expand.ts';
+import { expandEnergies } from '../../src/learn/expansion/expand.ts';
 import { parseEnergiesObject, parseEnergiesText } from '../../src/io/energiesFile.ts';
 import { refusal } from './refusal.ts';
 

@@ -6,7 +6,7 @@
 import {
   EXPANSION_CAVEAT, EXPANSION_DEFAULTS, expandEnergies, MAX_PAIR_SHELLS, MAX_TRIPLET_SHELLS, WINDOW_CV_SCORES,
   type ExpansionResult, type HullPoint,
-} from '../../expansion/index.ts';
+} from '../../learn/expansion/index.ts';
 import { parseEnergiesText, type EnergiesFile } from '../../io/energiesFile.ts';
 import { invalid, namingSource } from '../../validate/invalid.ts';
 import { hnfRows } from '../../lattice/pattern.ts';

@@ -9,7 +9,7 @@
  * Layout: spins σ in a Float64Array by HNF site index s = j·a + i; per supercell a table of the site reached
  * from every site by every offset of the cluster set, `table[k·N + s]` (Int32Array), built once and cached.
  */
-import { reduceSite, type Hnf } from '../lattice/hnf.ts';
+import { reduceSite, type Hnf } from '../../lattice/hnf.ts';
 import type { ClusterSet } from './clusters.ts';
 
 /** Supercell tables kept before the cache is emptied (the enumerator visits supercells in order, so few are live). */

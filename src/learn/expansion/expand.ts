@@ -3,10 +3,10 @@
  * energies, predict the patterns of a range, build the hull of the calculations, and suggest what to compute next.
  * A training set that cannot be fitted is refused here with the front end's own field names.
  */
-import { canonicalForm } from '../enumerate/canonical.ts';
-import { refuseRendered } from '../validate/fields.ts';
-import { invalid } from '../validate/invalid.ts';
-import type { Pattern } from '../lattice/sheet.ts';
+import { canonicalForm } from '../../enumerate/canonical.ts';
+import { refuseRendered } from '../../validate/fields.ts';
+import { invalid } from '../../validate/invalid.ts';
+import type { Pattern } from '../../lattice/sheet.ts';
 import { clusterSet, type ClusterKind, type ClusterSet } from './clusters.ts';
 import { fitExpansion, isFitProblem, type ExpansionFit, type TrainingStructure } from './fit.ts';
 import { aboveHull, lowerHull, type HullVertex } from './hull.ts';

@@ -5,12 +5,12 @@
  */
 import { inverse, Matrix, pseudoInverse, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { clusterSet } from '../../src/expansion/clusters.ts';
-import { CorrelationEngine } from '../../src/expansion/correlations.ts';
-import { designMatrix, fitExpansion, isFitProblem, type ExpansionFit, type TrainingStructure } from '../../src/expansion/fit.ts';
-import { leastSquares, quadraticForm } from '../../src/expansion/leastSquares.ts';
-import { predictStructures } from '../../src/expansion/predict.ts';
-import type { Pattern } from '../../src/lattice/sheet.ts';
+import { clusterSet } from '../../../src/learn/expansion/clusters.ts';
+import { CorrelationEngine } from '../../../src/learn/expansion/correlations.ts';
+import { designMatrix, fitExpansion, isFitProblem, type ExpansionFit, type TrainingStructure } from '../../../src/learn/expansion/fit.ts';
+import { leastSquares, quadraticForm } from '../../../src/learn/expansion/leastSquares.ts';
+import { predictStructures } from '../../../src/learn/expansion/predict.ts';
+import type { Pattern } from '../../../src/lattice/sheet.ts';
 import { gaussian, KNOWN_ECI, pairModelEnergy, patternPool, shuffled } from './pairModel.ts';
 
 const PAIRS_3 = clusterSet({ pairShells: 3, tripletShells: 0 });

@@ -5,7 +5,7 @@
  * rule (regression guards of the criterion), not an outside fact.
  */
 import { describe, expect, it } from 'vitest';
-import { suggestNext, type SuggestionCandidate } from '../../src/expansion/suggest.ts';
+import { suggestNext, type SuggestionCandidate } from '../../../src/learn/expansion/suggest.ts';
 
 const pattern = { bond: 1.69, supercell: { a: 1, b: 0, c: 1 }, vacancies: [] as [number, number][] };
 let made = 0;

@@ -4,12 +4,12 @@
  * sums of pairModel.ts.
  */
 import { describe, expect, it } from 'vitest';
-import { clusterSet } from '../../src/expansion/clusters.ts';
-import { CorrelationEngine } from '../../src/expansion/correlations.ts';
-import { makePattern } from '../../src/lattice/pattern.ts';
-import { findSheetPreset } from '../../src/lattice/presets.ts';
-import type { Pattern } from '../../src/lattice/sheet.ts';
-import { apply, POINT_GROUP_6MM } from '../../src/lattice/triangular.ts';
+import { clusterSet } from '../../../src/learn/expansion/clusters.ts';
+import { CorrelationEngine } from '../../../src/learn/expansion/correlations.ts';
+import { makePattern } from '../../../src/lattice/pattern.ts';
+import { findSheetPreset } from '../../../src/lattice/presets.ts';
+import type { Pattern } from '../../../src/lattice/sheet.ts';
+import { apply, POINT_GROUP_6MM } from '../../../src/lattice/triangular.ts';
 import { pairModelEnergy, patternPool } from './pairModel.ts';
 
 const engine = new CorrelationEngine(clusterSet({ pairShells: 3, tripletShells: 2 }));

@@ -16,7 +16,7 @@
  * Patterns outside the η range of the calculations are extrapolations and never suggested. Of patterns the
  * clusters cannot tell apart (equal η, prediction and uncertainty: equal correlations), one is suggested.
  */
-import type { Pattern } from '../lattice/sheet.ts';
+import type { Pattern } from '../../lattice/sheet.ts';
 
 /** The window above the hull is this many CV scores. */
 export const WINDOW_CV_SCORES = 2;

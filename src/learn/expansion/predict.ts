@@ -3,7 +3,7 @@
  * structure at a time (src/enumerate, each once up to 6mm and translations at its smallest cell), its correlations
  * come from the cached tables of its supercell, and nothing of it is kept but the numbers asked for.
  */
-import { enumerateStructures, type EnumerateOptions, type Structure } from '../enumerate/index.ts';
+import { enumerateStructures, type EnumerateOptions, type Structure } from '../../enumerate/index.ts';
 import { CorrelationEngine } from './correlations.ts';
 import { predictFromCorrelations, type ExpansionFit } from './fit.ts';
 

@@ -5,10 +5,10 @@
  * the pair sum counting each pair once per site's share. Shell distances 1, √3, 2 (units of d): geometry of the
  * triangular lattice, |i·a1 + j·a2|² = i² + ij + j² (common practice).
  */
-import { enumerateStructures } from '../../src/enumerate/index.ts';
-import { latticePoint } from '../../src/lattice/triangular.ts';
-import type { Pattern } from '../../src/lattice/sheet.ts';
-import { mulberry32 } from '../../src/stm/synthetic.ts';
+import { enumerateStructures } from '../../../src/enumerate/index.ts';
+import { latticePoint } from '../../../src/lattice/triangular.ts';
+import type { Pattern } from '../../../src/lattice/sheet.ts';
+import { mulberry32 } from '../../../src/stm/synthetic.ts';
 
 export const SHELL_DISTANCES = [1, Math.sqrt(3), 2];
 

@@ -2,8 +2,8 @@
  * clusterSet(options), neighbourShells(count): the cluster orbits of the triangular lattice against its geometry.
  */
 import { describe, expect, it } from 'vitest';
-import { clusterSet, MAX_PAIR_SHELLS, MAX_TRIPLET_SHELLS, neighbourShells } from '../../src/expansion/clusters.ts';
-import { latticePoint } from '../../src/lattice/triangular.ts';
+import { clusterSet, MAX_PAIR_SHELLS, MAX_TRIPLET_SHELLS, neighbourShells } from '../../../src/learn/expansion/clusters.ts';
+import { latticePoint } from '../../../src/lattice/triangular.ts';
 
 describe('neighbourShells(count)', () => {
   it('lies at 1, √3, 2, √7, 3, √12, √13, 4 lattice spacings (geometry: i² + ij + j², the Löschian numbers; common practice)', () => {

@@ -13,7 +13,7 @@
 import { CorrelationEngine } from './correlations.ts';
 import type { ClusterSet } from './clusters.ts';
 import { leastSquares, quadraticForm, type LeastSquares } from './leastSquares.ts';
-import type { Pattern } from '../lattice/sheet.ts';
+import type { Pattern } from '../../lattice/sheet.ts';
 
 /** A training structure: a pattern and its energy per cell (eV) from the user's own calculation. */
 export interface TrainingStructure {

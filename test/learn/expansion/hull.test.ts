@@ -3,7 +3,7 @@
  * vertices, checked analytically.
  */
 import { describe, expect, it } from 'vitest';
-import { aboveHull, hullEnergyAt, lowerHull } from '../../src/expansion/hull.ts';
+import { aboveHull, hullEnergyAt, lowerHull } from '../../../src/learn/expansion/hull.ts';
 
 describe('lowerHull', () => {
   it('of two points is the line through them: every η between lies at the interpolated energy (analytic)', () => {

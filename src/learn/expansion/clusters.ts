@@ -11,7 +11,7 @@
  * figures — its clusters per lattice site, each translated so that its smallest point (by i, then j) is the
  * site — as indices into the offsets, `figures[f·size + t]` for point t of figure f.
  */
-import { apply, POINT_GROUP_6MM } from '../lattice/triangular.ts';
+import { apply, POINT_GROUP_6MM } from '../../lattice/triangular.ts';
 
 export type ClusterKind = 'empty' | 'point' | 'pair' | 'triplet';
 
