@@ -153,16 +153,20 @@ export function energyHullPick(svg: Element, x: number, y: number, radius = 8): 
   const energy = readLinear(svg, 'energy-scale');
   if (!eta || !energy) return undefined;
   let best: { kind: 'computed' | 'predicted'; index: number } | undefined;
-  let nearest = radius * radius;
-  // The user's points first: at a tie they win over a prediction beneath them.
-  for (const element of [...svg.querySelectorAll('[data-layer="computed"] [data-kind]'), ...svg.querySelectorAll('[data-layer="predicted"] [data-kind]')]) {
-    const dx = eta(Number(element.getAttribute('data-eta'))) - x;
-    const dy = energy(Number(element.getAttribute('data-energy'))) - y;
-    const d = dx * dx + dy * dy;
-    if (d < nearest) {
-      nearest = d;
-      best = { kind: element.getAttribute('data-kind') as 'computed' | 'predicted', index: Number(element.getAttribute('data-index')) };
+  // The user's points first, and a prediction only where none of them is within reach: their discs are drawn on
+  // top, so a click on a disc means that calculation even when a prediction sits a pixel nearer beneath it.
+  for (const layer of ['computed', 'predicted']) {
+    let nearest = radius * radius;
+    for (const element of svg.querySelectorAll(`[data-layer="${layer}"] [data-kind]`)) {
+      const dx = eta(Number(element.getAttribute('data-eta'))) - x;
+      const dy = energy(Number(element.getAttribute('data-energy'))) - y;
+      const d = dx * dx + dy * dy;
+      if (d < nearest) {
+        nearest = d;
+        best = { kind: element.getAttribute('data-kind') as 'computed' | 'predicted', index: Number(element.getAttribute('data-index')) };
+      }
     }
+    if (best) break;
   }
   return best;
 }

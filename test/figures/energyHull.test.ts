@@ -50,6 +50,19 @@ describe('energyHullFigure', () => {
     expect(energyHullPick(svg, -100, -100)).toBeUndefined();
   });
 
+  it('a click on a computed disc picks it even when a prediction lies nearer to the pointer (drawn beneath it)', () => {
+    const eta = readLinear(svg, 'eta-scale')!;
+    const energy = readLinear(svg, 'energy-scale')!;
+    const target = data.computed[3];
+    const beneath = svg.querySelector('[data-layer="predicted"] [data-kind]')!;
+    // Move one prediction 3 px right of the disc's centre and click 2.5 px right: the prediction is nearer.
+    const x = eta(target.eta);
+    const y = energy(target.relative);
+    beneath.setAttribute('data-eta', String(eta.invert(x + 3)));
+    beneath.setAttribute('data-energy', String(energy.invert(y)));
+    expect(energyHullPick(svg, x + 2.5, y)).toEqual({ kind: 'computed', index: target.index });
+  });
+
   it('setEnergyHullSelected moves the ring onto the point and hides it again', () => {
     const ring = svg.querySelector('[data-role="selected"]')!;
     const target = data.computed[2];
