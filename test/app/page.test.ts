@@ -357,6 +357,15 @@ describe.skipIf(!available)('the web view in Chromium', () => {
     expect(await page.locator('svg[data-figure="energy-hull"] > title').textContent()).toMatch(/^DEMO — /);
     expect(await page.locator('#energies-source').innerText()).toMatch(/^DEMO — invented energies/);
     expect(await page.locator('#energies-caveat').innerText()).toMatch(/interpolation of your own calculations, only as good as they are.*computing the suggested patterns/s);
+    // The chart saves as an SVG file that parses and names itself DEMO.
+    const [saved] = await Promise.all([page.waitForEvent('download'), page.click('#energies-svg')]);
+    expect(saved.suggestedFilename()).toBe('hsl-energies-hull.svg');
+    const savedPath = `${OUTPUT}/${saved.suggestedFilename()}`;
+    await saved.saveAs(savedPath);
+    const savedText = readFileSync(savedPath, 'utf8');
+    expect(await page.evaluate((text) => new DOMParser().parseFromString(text, 'image/svg+xml').querySelector('parsererror') === null, savedText)).toBe(true);
+    expect(savedText).toMatch(/<svg[^>]*data-figure="energy-hull"[^>]*data-style="publication"/);
+    expect(savedText).toMatch(/<title>DEMO — /);
     // The DEMO file's invented pair model has the one-hole-in-7 pattern on its hull, and the file leaves it out
     // (our arithmetic on the invented model): the ground-state check must suggest it first.
     const first = page.locator('#energies-suggestions button').first();

@@ -12,6 +12,7 @@ import { hnfRows } from '../../lattice/pattern.ts';
 import type { App } from '../app.ts';
 import { readPairShells, readPredictHoles, readPredictSites, readTripletShells } from '../energiesFields.ts';
 import type { ExpansionInput, ExpansionView, ShownPattern } from '../expansionJob.ts';
+import { download, svgText, svgToPng } from '../download.ts';
 import { Cancelled, WorkerLane } from '../worker/client.ts';
 import { readField } from './readField.ts';
 
@@ -40,6 +41,8 @@ export class EnergiesPanel {
     $<HTMLButtonElement>(doc, '#energies-demo').addEventListener('click', () => void this.fit(DEMO_FILE));
     $<HTMLButtonElement>(doc, '#energies-cancel').addEventListener('click', () => this.lane.cancel());
     $<HTMLElement>(doc, '#energy-hull-host').addEventListener('click', (event) => this.pick(event));
+    $<HTMLButtonElement>(doc, '#energies-svg').addEventListener('click', () => void this.save('svg'));
+    $<HTMLButtonElement>(doc, '#energies-png').addEventListener('click', () => void this.save('png'));
     void this.fit();
   }
 
@@ -152,6 +155,15 @@ export class EnergiesPanel {
     if (svg) setEnergyHullSelected(svg, chosen);
     const { pattern } = shown;
     this.app.showPattern(shown.label, { bond: pattern.bond, supercell: hnfRows(pattern.supercell), vacancies: pattern.vacancies });
+  }
+
+  /** The energy–η figure as a file, in the publication look, named after the energies file. */
+  private async save(kind: 'svg' | 'png'): Promise<void> {
+    const svg = this.figure();
+    if (!svg) return;
+    const stem = `${this.file.name.replace(/\.[^.]*$/, '') || 'energies'}-hull`;
+    if (kind === 'svg') download(this.doc, `${stem}.svg`, new Blob([svgText(svg)], { type: 'image/svg+xml' }));
+    else download(this.doc, `${stem}.png`, await svgToPng(svg));
   }
 
   /** The figure in the publication look (for exports), with the chosen point ringed. */
