@@ -12,10 +12,20 @@
  *
  * Each step applies A₂₂ ← P·A₂₂·P = A₂₂ − u·wᴴ − w·uᴴ with p = τ·A₂₂·u, w = p − (τ·uᴴp/2)·u, on the lower
  * triangle only. The rank-2 update of step k and the product A₂₂·u_{k+1} of step k+1 share one pass over the
- * triangle (column k+1 is updated first, so u_{k+1} is known before the pass; eighTriangle.ts).
+ * triangle (column k+1 is updated first, so u_{k+1} is known before the pass; eighTriangle.ts). The passes run in
+ * WebAssembly SIMD where the runtime has it (eighTriangleSimd.ts; `work` and `lanes` then live in its memory),
+ * in TypeScript otherwise; the O(n) work of each step (reflector, column k+1, w) is TypeScript on either route.
  */
 
 import { productOnly, updateAndProduct, updateOnly } from './eighTriangle.ts';
+import { simdInstance, simdModule } from './simdModule.ts';
+
+/** The three passes of a step on one route, each over rows/columns start…n−1 (eighTriangle.ts). */
+interface TrianglePasses {
+  productOnly(start: number): void;
+  updateOnly(start: number): void;
+  updateAndProduct(start: number): void;
+}
 
 /** Below this, a sum of squares may have lost precision to underflow (2^−1022/ε ≈ 2^−970); rescale first. */
 const SQUARES_UNSAFE = 2 ** -900;
@@ -39,10 +49,14 @@ export class HermitianTridiagonaliser {
   /** Complex sub-diagonal T[k+1][k], k = 0…n−2. */
   readonly subRe: Float64Array;
   readonly subIm: Float64Array;
+  /** True when the passes run in WebAssembly SIMD. */
+  readonly simd: boolean;
   private readonly work: Float64Array;
   private readonly lanes: Float64Array;
+  private readonly passes: TrianglePasses;
 
-  constructor(n: number) {
+  /** Options: `simd` (default true) runs the passes in WebAssembly SIMD where available; false forces TypeScript. */
+  constructor(n: number, options: { simd?: boolean } = {}) {
     this.n = n;
     this.reflRe = new Float64Array(n * n);
     this.reflIm = new Float64Array(n * n);
@@ -50,8 +64,33 @@ export class HermitianTridiagonaliser {
     this.diag = new Float64Array(n);
     this.subRe = new Float64Array(n);
     this.subIm = new Float64Array(n);
-    this.work = new Float64Array(2 * n * n);
-    this.lanes = new Float64Array(8 * n);
+    const module = options.simd === false || n < 3 ? null : simdModule();
+    this.simd = module !== null;
+    if (module !== null) {
+      const { memory, exports } = simdInstance(module, 16 * n * n + 96 * n);
+      this.work = new Float64Array(memory.buffer, 0, 2 * n * n);
+      this.lanes = new Float64Array(memory.buffer, 16 * n * n, 8 * n);
+      const lanesAt = 16 * n * n;
+      const pass = (name: string) => {
+        const run = exports[name] as (work: number, lanes: number, swaps: number, n: number, start: number) => void;
+        return (start: number) => run(0, lanesAt, lanesAt + 64 * n, n, start);
+      };
+      this.passes = {
+        productOnly: pass('hermitianProduct'),
+        updateOnly: pass('hermitianUpdate'),
+        updateAndProduct: pass('hermitianUpdateProduct'),
+      };
+    } else {
+      const work = new Float64Array(2 * n * n);
+      const lanes = new Float64Array(8 * n);
+      this.work = work;
+      this.lanes = lanes;
+      this.passes = {
+        productOnly: (start) => productOnly(n, work, lanes, start),
+        updateOnly: (start) => updateOnly(n, work, lanes, start),
+        updateAndProduct: (start) => updateAndProduct(n, work, lanes, start),
+      };
+    }
   }
 
   /**
@@ -67,20 +106,16 @@ export class HermitianTridiagonaliser {
     const tau = this.tau;
     this.diag[0] = work[0];
     if (n === 1) return scale;
-    if (this.reflector(0)) productOnly(n, this.work, this.lanes, 1);
+    const passes = this.passes;
+    if (this.reflector(0, false)) passes.productOnly(1);
     for (let k = 0; k + 1 < n; k++) {
       const first = k + 1;
       const updating = tau[k] !== 0;
-      if (updating) {
-        this.promote(first);
-        this.toRankTwoVector(k);
-        this.updateColumn(k);
-      }
-      this.diag[first] = work[2 * (first * n + first)];
-      const producing = first + 1 < n && this.reflector(first);
-      if (updating && producing) updateAndProduct(n, work, this.lanes, k + 2);
-      else if (updating) updateOnly(n, work, this.lanes, k + 2);
-      else if (producing) productOnly(n, work, this.lanes, first + 1);
+      if (updating) this.toRankTwoVector(k);
+      const producing = this.reflector(first, updating);
+      if (updating && producing) passes.updateAndProduct(k + 2);
+      else if (updating) passes.updateOnly(k + 2);
+      else if (producing) passes.productOnly(first + 1);
     }
     return scale;
   }
@@ -123,44 +158,68 @@ export class HermitianTridiagonaliser {
   }
 
   /**
-   * Reflector k from column k (rows k+1…n−1) of the updated working copy: P·x = −phase(x₀)·‖x‖·e₁ with
-   * u = x + phase(x₀)·‖x‖·e₁ (no cancellation) and τ = 2/(uᴴu) = 1/(‖x‖·(‖x‖ + |x₀|)).
-   * Writes u into row k of reflRe/reflIm and into the v lanes. Returns false (τ = 0, T[k+1][k] = x₀)
-   * when x is already a multiple of e₁.
+   * Column k (rows k…n−1) brought up to date by the rank-2 update of step k−1 when `updating` (−u·wᴴ − w·uᴴ, u and
+   * w in the lanes), T[k][k] read, then reflector k from rows k+1…n−1: P·x = −phase(x₀)·‖x‖·e₁ with
+   * u = x + phase(x₀)·‖x‖·e₁ (no cancellation) and τ = 2/(uᴴu) = 1/(‖x‖·(‖x‖ + |x₀|)). One strided pass over the
+   * column: x goes to row k of reflRe/reflIm as it is read. Writes u there and into the v lanes. Returns false
+   * (τ = 0, T[k+1][k] = x₀; row k of reflRe/reflIm then unused) when x is already a multiple of e₁, or when k is
+   * the last index.
    */
-  private reflector(k: number): boolean {
+  private reflector(k: number, updating: boolean): boolean {
     const n = this.n;
     const work = this.work;
+    const lanes = this.lanes;
+    const uRe = this.reflRe;
+    const uIm = this.reflIm;
+    const uRow = k * n;
     const first = k + 1;
-    let alphaRe = work[2 * (first * n + k)];
-    let alphaIm = work[2 * (first * n + k) + 1];
-    let tail = 0;
-    for (let r = first + 1; r < n; r++) {
-      const a = work[2 * (r * n + k)];
-      const b = work[2 * (r * n + k) + 1];
-      tail += a * a + b * b;
+    if (updating) {
+      const ucRe = lanes[8 * k];
+      const ucIm = lanes[8 * k + 1];
+      const wcRe = lanes[8 * k + 2];
+      const wcIm = lanes[8 * k + 3];
+      for (let i = k, at = 2 * (k * n + k); i < n; i++, at += 2 * n) {
+        const uiRe = lanes[8 * i];
+        const uiIm = lanes[8 * i + 1];
+        const wiRe = lanes[8 * i + 2];
+        const wiIm = lanes[8 * i + 3];
+        const x = work[at] - (uiRe * wcRe + uiIm * wcIm + wiRe * ucRe + wiIm * ucIm);
+        const y = work[at + 1] - (uiIm * wcRe - uiRe * wcIm + wiIm * ucRe - wiRe * ucIm);
+        work[at] = x;
+        work[at + 1] = y;
+        uRe[uRow + i] = x;
+        uIm[uRow + i] = y;
+      }
+    } else {
+      for (let i = k, at = 2 * (k * n + k); i < n; i++, at += 2 * n) {
+        uRe[uRow + i] = work[at];
+        uIm[uRow + i] = work[at + 1];
+      }
     }
+    this.diag[k] = uRe[uRow + k];
+    if (first >= n) return false;
+    let alphaRe = uRe[uRow + first];
+    let alphaIm = uIm[uRow + first];
+    let tail = 0;
+    for (let r = first + 1; r < n; r++) tail += uRe[uRow + r] * uRe[uRow + r] + uIm[uRow + r] * uIm[uRow + r];
     // u and τ may be computed from x/s for any s > 0 (P is unchanged); s is a power of two (exact), ≠ 1 only
     // for tiny columns whose squares lose precision.
     let s = 1;
-    let inverse = 1;
     if (tail + alphaRe * alphaRe + alphaIm * alphaIm < SQUARES_UNSAFE) {
       let largest = 0;
-      for (let r = first; r < n; r++) {
-        largest = Math.max(largest, Math.abs(work[2 * (r * n + k)]), Math.abs(work[2 * (r * n + k) + 1]));
-      }
-      if (largest > 0) {
-        s = 2 ** Math.max(-1000, Math.round(Math.log2(largest)));
-        inverse = 1 / s;
-      }
-      alphaRe *= inverse;
-      alphaIm *= inverse;
+      for (let r = first; r < n; r++) largest = Math.max(largest, Math.abs(uRe[uRow + r]), Math.abs(uIm[uRow + r]));
+      if (largest > 0) s = 2 ** Math.max(-1000, Math.round(Math.log2(largest)));
+      const inverse = 1 / s;
       tail = 0;
-      for (let r = first + 1; r < n; r++) {
-        const a = work[2 * (r * n + k)] * inverse;
-        const b = work[2 * (r * n + k) + 1] * inverse;
-        tail += a * a + b * b;
+      for (let r = first; r < n; r++) {
+        const a = uRe[uRow + r] * inverse;
+        const b = uIm[uRow + r] * inverse;
+        uRe[uRow + r] = a;
+        uIm[uRow + r] = b;
+        if (r > first) tail += a * a + b * b;
       }
+      alphaRe = uRe[uRow + first];
+      alphaIm = uIm[uRow + first];
     }
     if (tail === 0) {
       this.tau[k] = 0;
@@ -185,16 +244,8 @@ export class HermitianTridiagonaliser {
     this.tau[k] = 1 / (norm * (norm + absAlpha));
     this.subRe[k] = -phRe * norm * s;
     this.subIm[k] = -phIm * norm * s;
-    const uRe = this.reflRe;
-    const uIm = this.reflIm;
-    const lanes = this.lanes;
-    const uRow = k * n;
     uRe[uRow + first] = alphaRe + phRe * norm;
     uIm[uRow + first] = alphaIm + phIm * norm;
-    for (let r = first + 1; r < n; r++) {
-      uRe[uRow + r] = work[2 * (r * n + k)] * inverse;
-      uIm[uRow + r] = work[2 * (r * n + k) + 1] * inverse;
-    }
     for (let r = first; r < n; r++) {
       lanes[8 * r + 4] = uRe[uRow + r];
       lanes[8 * r + 5] = uIm[uRow + r];
@@ -202,18 +253,10 @@ export class HermitianTridiagonaliser {
     return true;
   }
 
-  /** Starts a step at index `first`: the next reflector v becomes the current u, its product q becomes p (in w). */
-  private promote(first: number): void {
-    const lanes = this.lanes;
-    for (let j = 8 * first, end = 8 * this.n; j < end; j += 8) {
-      lanes[j] = lanes[j + 4];
-      lanes[j + 1] = lanes[j + 5];
-      lanes[j + 2] = lanes[j + 6];
-      lanes[j + 3] = lanes[j + 7];
-    }
-  }
-
-  /** Turns p = A₂₂·u_k in the w lanes (indices k+1…n−1) into w = τp − (τ²·uᴴp/2)·u. */
+  /**
+   * Starts step k: the next reflector v (v lanes) becomes u, its product q = A₂₂·u becomes p, turned into
+   * w = τp − (τ²·uᴴp/2)·u in the w lanes (indices k+1…n−1).
+   */
   private toRankTwoVector(k: number): void {
     const lanes = this.lanes;
     const tau = this.tau[k];
@@ -221,37 +264,20 @@ export class HermitianTridiagonaliser {
     const end = 8 * this.n;
     let uhp = 0;
     for (let j = start; j < end; j += 8) {
-      const pRe = tau * lanes[j + 2];
-      const pIm = tau * lanes[j + 3];
+      const uRe = lanes[j + 4];
+      const uIm = lanes[j + 5];
+      const pRe = tau * lanes[j + 6];
+      const pIm = tau * lanes[j + 7];
+      lanes[j] = uRe;
+      lanes[j + 1] = uIm;
       lanes[j + 2] = pRe;
       lanes[j + 3] = pIm;
-      uhp += lanes[j] * pRe + lanes[j + 1] * pIm;
+      uhp += uRe * pRe + uIm * pIm;
     }
     const half = 0.5 * tau * uhp;
     for (let j = start; j < end; j += 8) {
       lanes[j + 2] -= half * lanes[j];
       lanes[j + 3] -= half * lanes[j + 1];
-    }
-  }
-
-  /** Applies −u·wᴴ − w·uᴴ of step k to column k+1 (rows k+1…n−1), the column the next reflector reads. */
-  private updateColumn(k: number): void {
-    const n = this.n;
-    const work = this.work;
-    const lanes = this.lanes;
-    const c = k + 1;
-    const ucRe = lanes[8 * c];
-    const ucIm = lanes[8 * c + 1];
-    const wcRe = lanes[8 * c + 2];
-    const wcIm = lanes[8 * c + 3];
-    for (let i = c; i < n; i++) {
-      const uiRe = lanes[8 * i];
-      const uiIm = lanes[8 * i + 1];
-      const wiRe = lanes[8 * i + 2];
-      const wiIm = lanes[8 * i + 3];
-      const at = 2 * (i * n + c);
-      work[at] -= uiRe * wcRe + uiIm * wcIm + wiRe * ucRe + wiIm * ucIm;
-      work[at + 1] -= uiIm * wcRe - uiRe * wcIm + wiIm * ucRe - wiRe * ucIm;
     }
   }
 }

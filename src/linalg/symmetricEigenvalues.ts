@@ -10,11 +10,21 @@
  * A₂₂ − u·wᵀ − w·uᵀ with p = τ·A₂₂·u, w = p − (τ·pᵀu/2)·u, on the lower triangle.
  */
 import { tridiagonalEigenvaluesRootFree } from './eighTridiagonal.ts';
+import { simdInstance, simdModule } from './simdModule.ts';
 
 /** The largest entry is brought into [2^−1, 1) by a power of two, so squares neither overflow nor underflow. */
 function powerOfTwoBelow(x: number): number {
   return 2 ** Math.ceil(Math.log2(x));
 }
+
+/** Options of SymmetricEigenvalues (tests and benchmarks; the default picks the fastest route). */
+export interface SymmetricEigenvaluesOptions {
+  /** Run the reduction's passes in WebAssembly SIMD where available (default true); false forces TypeScript. */
+  simd?: boolean;
+}
+
+/** The passes of one route: `run(work, u, w, v, q, from, kind)`, kind 0 product, 1 update, 2 both. */
+type Passes = (u: Float64Array, w: Float64Array, v: Float64Array, from: number, kind: 0 | 1 | 2) => void;
 
 /**
  * Eigenvalues of n×n real symmetric matrices with workspaces preallocated for one n; calls allocate nothing.
@@ -23,6 +33,8 @@ function powerOfTwoBelow(x: number): number {
  */
 export class SymmetricEigenvalues {
   readonly n: number;
+  /** True when the reduction's passes run in WebAssembly SIMD (symmetricTriangleSimd.ts). */
+  readonly simd: boolean;
   private readonly work: Float64Array;
   // Reflectors of the current and the next step (swapped each step), the rank-2 vector w, the product q = A₂₂·v.
   private readonly u: Float64Array;
@@ -31,16 +43,39 @@ export class SymmetricEigenvalues {
   private readonly q: Float64Array;
   private readonly diag: Float64Array;
   private readonly offSquared: Float64Array;
+  private readonly passes: Passes;
 
-  constructor(n: number) {
+  constructor(n: number, options: SymmetricEigenvaluesOptions = {}) {
     this.n = n;
-    this.work = new Float64Array(n * n);
-    this.u = new Float64Array(n);
-    this.v = new Float64Array(n);
-    this.w = new Float64Array(n);
-    this.q = new Float64Array(n);
     this.diag = new Float64Array(n);
     this.offSquared = new Float64Array(n);
+    const module = options.simd === false || n < 3 ? null : simdModule();
+    this.simd = module !== null;
+    if (module !== null) {
+      // work, then u, v, w, q (8n bytes each) in the kernel's memory.
+      const { memory, exports } = simdInstance(module, 8 * n * n + 32 * n);
+      const view = (at: number, length: number) => new Float64Array(memory.buffer, 8 * at, length);
+      this.work = view(0, n * n);
+      this.u = view(n * n, n);
+      this.v = view(n * n + n, n);
+      this.w = view(n * n + 2 * n, n);
+      this.q = view(n * n + 3 * n, n);
+      type Pass = (work: number, u: number, w: number, v: number, q: number, n: number, from: number) => void;
+      const kinds = [exports.symmetricProduct, exports.symmetricUpdate, exports.symmetricUpdateProduct] as Pass[];
+      const qAt = this.q.byteOffset;
+      this.passes = (u, w, v, from, kind) => kinds[kind](0, u.byteOffset, w.byteOffset, v.byteOffset, qAt, n, from);
+    } else {
+      this.work = new Float64Array(n * n);
+      this.u = new Float64Array(n);
+      this.v = new Float64Array(n);
+      this.w = new Float64Array(n);
+      this.q = new Float64Array(n);
+      const { work, q } = this;
+      this.passes = (u, w, v, from, kind) => {
+        if (kind === 0) product(n, work, v, q, from);
+        else updateAndProduct(n, work, u, w, v, q, from, kind === 2);
+      };
+    }
   }
 
   /** Ascending eigenvalues of `matrix` into out (length ≥ n); returns out. */
@@ -87,8 +122,9 @@ export class SymmetricEigenvalues {
     let v = this.v;
     const w = this.w;
     const q = this.q;
+    const passes = this.passes;
     let tau = n >= 3 ? this.reflector(0, u) : 0;
-    if (tau !== 0) product(n, work, u, q, 1);
+    if (tau !== 0) passes(u, w, u, 1, 0);
     for (let k = 0; k + 2 < n; k++) {
       diag[k] = work[k * n + k];
       const start = k + 1;
@@ -103,8 +139,8 @@ export class SymmetricEigenvalues {
         for (let i = start; i < n; i++) work[i * n + start] -= u[i] * ws + w[i] * us;
       }
       const nextTau = k + 3 < n ? this.reflector(start, v) : 0;
-      if (tau !== 0) updateAndProduct(n, work, u, w, v, q, start + 1, nextTau !== 0);
-      else if (nextTau !== 0) product(n, work, v, q, start + 1);
+      if (tau !== 0) passes(u, w, v, start + 1, nextTau !== 0 ? 2 : 1);
+      else if (nextTau !== 0) passes(u, w, v, start + 1, 0);
       [u, v] = [v, u];
       tau = nextTau;
     }

@@ -58,6 +58,23 @@ function section(id: number, contents: number[], out: number[]): void {
 }
 
 /**
+ * Numbers a function's locals as the binary format does: parameters first, then declared locals (each declared
+ * alone, so types may come in any order).
+ */
+export class Locals {
+  readonly params: ValueType[] = [];
+  readonly locals: ValueType[] = [];
+  param(type: ValueType): number {
+    this.params.push(type);
+    return this.params.length - 1;
+  }
+  local(type: ValueType): number {
+    this.locals.push(type);
+    return this.params.length + this.locals.length - 1;
+  }
+}
+
+/**
  * Instruction builder: each method appends one instruction and returns the builder. Locals are addressed by
  * index (parameters first, then declared locals, as in the binary format).
  */
@@ -109,6 +126,7 @@ export class Code {
   i32GeS(): this { return this.op(0x4e); }
   i32LtS(): this { return this.op(0x48); }
   i32Eqz(): this { return this.op(0x45); }
+  i32Shl(): this { return this.op(0x74); }
 
   f64Load(offset = 0): this { return this.memory(0x2b, 3, offset); }
   f64Store(offset = 0): this { return this.memory(0x39, 3, offset); }
@@ -125,10 +143,14 @@ export class Code {
   f64x2Add(): this { return this.simd(0xf0); }
   f64x2Sub(): this { return this.simd(0xf1); }
   f64x2Mul(): this { return this.simd(0xf2); }
-  /** The two f64 lanes swapped: (a, b) → (b, a). */
-  f64x2Swap(): this {
-    return this.simd(0x0d, 8, 9, 10, 11, 12, 13, 14, 15, 0, 1, 2, 3, 4, 5, 6, 7);
+  f64x2Neg(): this { return this.simd(0xed); }
+  /** Lanes (first[a], first[b] or second[a − 2], second[b − 2]): a, b in 0…3 index the two operands' lanes. */
+  f64x2Shuffle(a: number, b: number): this {
+    const bytes = (lane: number) => Array.from({ length: 8 }, (_, i) => 8 * lane + i);
+    return this.simd(0x0d, ...bytes(a), ...bytes(b));
   }
+  /** The lanes of the vector in `local` swapped: (a, b) → (b, a) (a shuffle of the vector with itself). */
+  f64x2Swapped(local: number): this { return this.get(local).get(local).f64x2Shuffle(1, 0); }
   dup(local: number): this { return this.tee(local).get(local); }
 }
 

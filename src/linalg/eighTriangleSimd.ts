@@ -1,0 +1,206 @@
+/**
+ * The passes of eighTriangle.ts (rank-2 update A₂₂ ← A₂₂ − u·wᴴ − w·uᴴ, Hermitian product q = A₂₂·v, or both
+ * fused) in WebAssembly SIMD. A complex number is one f64x2 (re, im), so the layout of eighTriangle.ts is kept:
+ * `work` n×n row-major complex interleaved (lower triangle), `lanes` 64 bytes per index j — u at +0, w at +16,
+ * v at +32, q at +48. `swaps` (32 bytes per j) receives s(u_j), s(w_j) at the start of an updating pass.
+ *
+ * Complex products without horizontal sums, s(x) = (x_im, x_re) being the lanes swapped (one shuffle):
+ *   a·conj(b) = b ⊙ (a_re, −a_re) + s(b) ⊙ (a_im, a_im)     (the update, a = u_i or w_i fixed along row i)
+ *   conj(x)·v = x ⊙ (v_re, −v_re) + s(x) ⊙ (v_im, v_im)      (q_j += conj(A_ij)·v_i)
+ *   Σ_j x_j·v_j = (Σ x⊙v)₀ − (Σ x⊙v)₁ + i·((Σ s(x)⊙v)₀ + (Σ s(x)⊙v)₁)   (row i's sum, two accumulators).
+ * One row at a time: per entry that is 8 multiplications, 8 additions and one shuffle on f64x2, with the row's
+ * six constants and two sums in registers. Rows in pairs (as in TypeScript, where loads are what cost) measured
+ * slower here: 16 constants and sums no longer fit the 16 vector registers.
+ */
+import { Code, Locals, type WasmFunction } from './wasmAssembler.ts';
+
+interface Pass {
+  update: boolean;
+  product: boolean;
+}
+
+class PassBuilder {
+  readonly l = new Locals();
+  readonly c = new Code();
+  // Parameters: byte addresses of work, lanes and swaps; n; the first row and column, start.
+  readonly work = this.l.param('i32');
+  readonly lanes = this.l.param('i32');
+  readonly swaps = this.l.param('i32');
+  readonly n = this.l.param('i32');
+  readonly start = this.l.param('i32');
+  readonly i = this.l.local('i32');
+  /** Lanes and swaps of index i (the row) and of index j (along the row). */
+  readonly li = this.l.local('i32');
+  readonly si = this.l.local('i32');
+  readonly lj = this.l.local('i32');
+  readonly sj = this.l.local('i32');
+  readonly lanesEnd = this.l.local('i32');
+  /** Address of entry (i, j). */
+  readonly at = this.l.local('i32');
+  readonly sign = this.l.local('v128');
+  // Row constants: the update's c1…c4 (from u_i, w_i), the product's d1, d2 (from v_i); the row sums.
+  readonly c1 = this.l.local('v128');
+  readonly c2 = this.l.local('v128');
+  readonly c3 = this.l.local('v128');
+  readonly c4 = this.l.local('v128');
+  readonly d1 = this.l.local('v128');
+  readonly d2 = this.l.local('v128');
+  readonly s1 = this.l.local('v128');
+  readonly s2 = this.l.local('v128');
+  readonly x = this.l.local('v128');
+  readonly sx = this.l.local('v128');
+  readonly vj = this.l.local('v128');
+
+  constructor(readonly pass: Pass) {}
+
+  /** Pushes (x_lane, −x_lane) or (x_lane, x_lane) of the vector in `x`. */
+  private splat(lane: number, negated: boolean): void {
+    this.c.get(this.x).f64x2ExtractLane(lane).f64x2Splat();
+    if (negated) this.c.get(this.sign).f64x2Mul();
+  }
+
+  /** The constants of row i (lanes at li) and its sums zeroed. */
+  private rowConstants(): void {
+    const c = this.c;
+    // (1, −1), formed per row so that it holds no register through the row's loop.
+    c.f64(1).f64x2Splat().f64(-1).f64x2ReplaceLane(1).set(this.sign);
+    if (this.pass.update) {
+      c.get(this.li).v128Load(0).set(this.x);
+      this.splat(0, true); c.set(this.c1);
+      this.splat(1, false); c.set(this.c2);
+      c.get(this.li).v128Load(16).set(this.x);
+      this.splat(0, true); c.set(this.c3);
+      this.splat(1, false); c.set(this.c4);
+    }
+    if (this.pass.product) {
+      c.get(this.li).v128Load(32).set(this.x);
+      this.splat(0, true); c.set(this.d1);
+      this.splat(1, false); c.set(this.d2);
+      c.f64(0).f64x2Splat().tee(this.s1).set(this.s2);
+    }
+  }
+
+  /** x = entry (i, j) at `at`, updated against index j (lanes at lj, swaps at sj) and stored, or loaded. */
+  private entry(lj: number, sj: number): void {
+    const c = this.c;
+    if (this.pass.update) {
+      c.get(this.at);
+      c.get(this.at).v128Load();
+      c.get(lj).v128Load(16).get(this.c1).f64x2Mul().get(sj).v128Load(16).get(this.c2).f64x2Mul().f64x2Add();
+      c.get(lj).v128Load(0).get(this.c3).f64x2Mul().get(sj).v128Load(0).get(this.c4).f64x2Mul().f64x2Add();
+      c.f64x2Add().f64x2Sub().tee(this.x).v128Store();
+    } else {
+      c.get(this.at).v128Load().set(this.x);
+    }
+    if (this.pass.product) c.f64x2Swapped(this.x).set(this.sx);
+  }
+
+  /** Row sums s1 += x⊙v_j, s2 += s(x)⊙v_j (v_j in vj). */
+  private sums(): void {
+    const c = this.c;
+    c.get(this.s1).get(this.x).get(this.vj).f64x2Mul().f64x2Add().set(this.s1);
+    c.get(this.s2).get(this.sx).get(this.vj).f64x2Mul().f64x2Add().set(this.s2);
+  }
+
+  /** Adds the value on the stack to q at lanes `l`. */
+  private addToQ(l: number): void {
+    this.c.set(this.vj);
+    this.c.get(l).get(l).v128Load(48).get(this.vj).f64x2Add().v128Store(48);
+  }
+
+  /** A loop from `from` over the lanes of indices …end−1 (64 bytes each, swaps 32 each) while lj < end. */
+  private forColumns(from: number, swapsFrom: number, end: number, inner: () => void): void {
+    const c = this.c;
+    c.get(from).set(this.lj);
+    c.get(swapsFrom).set(this.sj);
+    c.block(() => {
+      c.get(this.lj).get(end).i32GeS().brIf(0);
+      c.loop(() => {
+        inner();
+        c.get(this.sj).i32(32).i32Add().set(this.sj);
+        c.get(this.lj).i32(64).i32Add().tee(this.lj).get(end).i32LtS().brIf(0);
+      });
+    });
+  }
+
+  body(): number[] {
+    const c = this.c;
+    const { update, product } = this.pass;
+    c.get(this.lanes).get(this.n).i32(64).i32Mul().i32Add().set(this.lanesEnd);
+    c.get(this.lanes).get(this.start).i32(64).i32Mul().i32Add().set(this.li);
+    c.get(this.swaps).get(this.start).i32(32).i32Mul().i32Add().set(this.si);
+    if (update) {
+      // s(u_j), s(w_j) over start…n−1, read by every row.
+      this.forColumns(this.li, this.si, this.lanesEnd, () => {
+        c.get(this.sj);
+        c.get(this.lj).v128Load(0).set(this.x);
+        c.f64x2Swapped(this.x).v128Store(0);
+        c.get(this.sj);
+        c.get(this.lj).v128Load(16).set(this.x);
+        c.f64x2Swapped(this.x).v128Store(16);
+      });
+    }
+    if (product) {
+      this.forColumns(this.li, this.si, this.lanesEnd, () => {
+        c.get(this.lj).f64(0).f64x2Splat().v128Store(48);
+      });
+    }
+    // The rows: i from start, li/si its lanes and swaps; the columns start…i−1 in the loop, then the diagonal.
+    c.get(this.start).set(this.i);
+    const rowStartLanes = this.l.local('i32');
+    const rowStartSwaps = this.l.local('i32');
+    c.get(this.li).set(rowStartLanes);
+    c.get(this.si).set(rowStartSwaps);
+    c.block(() => {
+      c.loop(() => {
+        c.get(this.i).get(this.n).i32GeS().brIf(1);
+        this.rowConstants();
+        // (i, start) at work + 16·(i·n + start).
+        c.get(this.work).get(this.i).get(this.n).i32Mul().get(this.start).i32Add().i32(16).i32Mul().i32Add().set(this.at);
+        this.forColumns(rowStartLanes, rowStartSwaps, this.li, () => {
+          if (product) c.get(this.lj).v128Load(32).set(this.vj);
+          this.entry(this.lj, this.sj);
+          if (product) {
+            this.sums();
+            // q_j += conj(x)·v_i.
+            c.get(this.x).get(this.d1).f64x2Mul().get(this.sx).get(this.d2).f64x2Mul().f64x2Add();
+            this.addToQ(this.lj);
+          }
+          c.get(this.at).i32(16).i32Add().set(this.at);
+        });
+        // The diagonal (real): the update's formula leaves its imaginary lane as it was (p − q + (q − p) = 0 in
+        // floating point), as the TypeScript pass does; q_i += Σ_j x_ij·v_j + d·v_i.
+        this.entry(this.li, this.si);
+        if (product) {
+          c.get(this.s1).f64x2ExtractLane(0).get(this.s1).f64x2ExtractLane(1).f64Sub().f64x2Splat();
+          c.get(this.s2).f64x2ExtractLane(0).get(this.s2).f64x2ExtractLane(1).f64Add().f64x2ReplaceLane(1);
+          c.get(this.x).f64x2ExtractLane(0).f64x2Splat().get(this.li).v128Load(32).f64x2Mul().f64x2Add();
+          this.addToQ(this.li);
+        }
+        c.get(this.i).i32(1).i32Add().set(this.i);
+        c.get(this.li).i32(64).i32Add().set(this.li);
+        c.get(this.si).i32(32).i32Add().set(this.si);
+        c.br(0);
+      });
+    });
+    return c.bytes;
+  }
+}
+
+function passFunction(name: string, pass: Pass): WasmFunction {
+  const builder = new PassBuilder(pass);
+  const body = builder.body();
+  return { name, params: builder.l.params, locals: builder.l.locals, body };
+}
+
+/**
+ * The three passes, each `(work, lanes, swaps, n, start)` (addresses in bytes) over rows and columns start…n−1:
+ * hermitianProduct (q = A₂₂·v), hermitianUpdate (the rank-2 update alone), hermitianUpdateProduct (both fused).
+ */
+export function hermitianPassFunctions(): WasmFunction[] {
+  return [
+    passFunction('hermitianProduct', { update: false, product: true }),
+    passFunction('hermitianUpdate', { update: true, product: false }),
+    passFunction('hermitianUpdateProduct', { update: true, product: true }),
+  ];
+}
