@@ -20,11 +20,13 @@
 import { productOnly, updateAndProduct, updateOnly } from './eighTriangle.ts';
 import { simdInstance, simdModule } from './simdModule.ts';
 
-/** The three passes of a step on one route, each over rows/columns start…n−1 (eighTriangle.ts). */
-interface TrianglePasses {
+/** The kernels of one route: the three passes over rows/columns start…n−1 (eighTriangle.ts) and the column step. */
+interface StepKernels {
   productOnly(start: number): void;
   updateOnly(start: number): void;
   updateAndProduct(start: number): void;
+  /** See HermitianTridiagonaliser.column; returns Σ_{r ≥ k+2} |x_r|². */
+  column(k: number, updating: boolean): number;
 }
 
 /** Below this, a sum of squares may have lost precision to underflow (2^−1022/ε ≈ 2^−970); rescale first. */
@@ -53,13 +55,12 @@ export class HermitianTridiagonaliser {
   readonly simd: boolean;
   private readonly work: Float64Array;
   private readonly lanes: Float64Array;
-  private readonly passes: TrianglePasses;
+  private readonly kernels: StepKernels;
 
-  /** Options: `simd` (default true) runs the passes in WebAssembly SIMD where available; false forces TypeScript. */
+  /** Options: `simd` (default true) runs the O(n²) passes and the O(n) column steps in WebAssembly SIMD where
+   * available (n ≥ 3; smaller orders need no pass); false forces TypeScript. */
   constructor(n: number, options: { simd?: boolean } = {}) {
     this.n = n;
-    this.reflRe = new Float64Array(n * n);
-    this.reflIm = new Float64Array(n * n);
     this.tau = new Float64Array(n);
     this.diag = new Float64Array(n);
     this.subRe = new Float64Array(n);
@@ -67,28 +68,48 @@ export class HermitianTridiagonaliser {
     const module = options.simd === false || n < 3 ? null : simdModule();
     this.simd = module !== null;
     if (module !== null) {
-      const { memory, exports } = simdInstance(module, 16 * n * n + 96 * n);
-      this.work = new Float64Array(memory.buffer, 0, 2 * n * n);
-      this.lanes = new Float64Array(memory.buffer, 16 * n * n, 8 * n);
+      // Bytes: work (16n²), lanes (64n), swaps (32n), reflRe and reflIm (8n² each), the tail (8).
       const lanesAt = 16 * n * n;
+      const swapsAt = lanesAt + 64 * n;
+      const reflReAt = swapsAt + 32 * n;
+      const reflImAt = reflReAt + 8 * n * n;
+      const tailAt = reflImAt + 8 * n * n;
+      const { memory, exports } = simdInstance(module, tailAt + 8);
+      this.work = new Float64Array(memory.buffer, 0, 2 * n * n);
+      this.lanes = new Float64Array(memory.buffer, lanesAt, 8 * n);
+      this.reflRe = new Float64Array(memory.buffer, reflReAt, n * n);
+      this.reflIm = new Float64Array(memory.buffer, reflImAt, n * n);
+      const tail = new Float64Array(memory.buffer, tailAt, 1);
       const pass = (name: string) => {
         const run = exports[name] as (work: number, lanes: number, swaps: number, n: number, start: number) => void;
-        return (start: number) => run(0, lanesAt, lanesAt + 64 * n, n, start);
+        return (start: number) => run(0, lanesAt, swapsAt, n, start);
       };
-      this.passes = {
+      const column = exports.hermitianColumn as (
+        work: number, lanes: number, reflRe: number, reflIm: number, tailAt: number, n: number, k: number,
+        tau: number, updating: number,
+      ) => void;
+      const tau = this.tau;
+      this.kernels = {
         productOnly: pass('hermitianProduct'),
         updateOnly: pass('hermitianUpdate'),
         updateAndProduct: pass('hermitianUpdateProduct'),
+        column: (k, updating) => {
+          column(0, lanesAt, reflReAt, reflImAt, tailAt, n, k, updating ? tau[k - 1] : 0, updating ? 1 : 0);
+          return tail[0];
+        },
       };
     } else {
       const work = new Float64Array(2 * n * n);
       const lanes = new Float64Array(8 * n);
       this.work = work;
       this.lanes = lanes;
-      this.passes = {
+      this.reflRe = new Float64Array(n * n);
+      this.reflIm = new Float64Array(n * n);
+      this.kernels = {
         productOnly: (start) => productOnly(n, work, lanes, start),
         updateOnly: (start) => updateOnly(n, work, lanes, start),
         updateAndProduct: (start) => updateAndProduct(n, work, lanes, start),
+        column: (k, updating) => this.column(k, updating),
       };
     }
   }
@@ -106,16 +127,15 @@ export class HermitianTridiagonaliser {
     const tau = this.tau;
     this.diag[0] = work[0];
     if (n === 1) return scale;
-    const passes = this.passes;
-    if (this.reflector(0, false)) passes.productOnly(1);
+    const kernels = this.kernels;
+    if (this.reflector(0, false)) kernels.productOnly(1);
     for (let k = 0; k + 1 < n; k++) {
       const first = k + 1;
       const updating = tau[k] !== 0;
-      if (updating) this.toRankTwoVector(k);
       const producing = this.reflector(first, updating);
-      if (updating && producing) passes.updateAndProduct(k + 2);
-      else if (updating) passes.updateOnly(k + 2);
-      else if (producing) passes.productOnly(first + 1);
+      if (updating && producing) kernels.updateAndProduct(k + 2);
+      else if (updating) kernels.updateOnly(k + 2);
+      else if (producing) kernels.productOnly(first + 1);
     }
     return scale;
   }
@@ -158,50 +178,23 @@ export class HermitianTridiagonaliser {
   }
 
   /**
-   * Column k (rows k…n−1) brought up to date by the rank-2 update of step k−1 when `updating` (−u·wᴴ − w·uᴴ, u and
-   * w in the lanes), T[k][k] read, then reflector k from rows k+1…n−1: P·x = −phase(x₀)·‖x‖·e₁ with
-   * u = x + phase(x₀)·‖x‖·e₁ (no cancellation) and τ = 2/(uᴴu) = 1/(‖x‖·(‖x‖ + |x₀|)). One strided pass over the
-   * column: x goes to row k of reflRe/reflIm as it is read. Writes u there and into the v lanes. Returns false
-   * (τ = 0, T[k+1][k] = x₀; row k of reflRe/reflIm then unused) when x is already a multiple of e₁, or when k is
-   * the last index.
+   * Reflector k from column k (rows k+1…n−1) once the column step has run (see `column`): P·x = −phase(x₀)·‖x‖·e₁
+   * with u = x + phase(x₀)·‖x‖·e₁ (no cancellation) and τ = 2/(uᴴu) = 1/(‖x‖·(‖x‖ + |x₀|)). Leaves u in row k of
+   * reflRe/reflIm and in the v lanes; reads T[k][k]. Returns false (τ = 0, T[k+1][k] = x₀) when x is already a
+   * multiple of e₁, or when k is the last index.
    */
   private reflector(k: number, updating: boolean): boolean {
     const n = this.n;
-    const work = this.work;
+    const first = k + 1;
+    let tail = this.kernels.column(k, updating);
+    this.diag[k] = this.work[2 * (k * n + k)];
+    if (first >= n) return false;
     const lanes = this.lanes;
     const uRe = this.reflRe;
     const uIm = this.reflIm;
     const uRow = k * n;
-    const first = k + 1;
-    if (updating) {
-      const ucRe = lanes[8 * k];
-      const ucIm = lanes[8 * k + 1];
-      const wcRe = lanes[8 * k + 2];
-      const wcIm = lanes[8 * k + 3];
-      for (let i = k, at = 2 * (k * n + k); i < n; i++, at += 2 * n) {
-        const uiRe = lanes[8 * i];
-        const uiIm = lanes[8 * i + 1];
-        const wiRe = lanes[8 * i + 2];
-        const wiIm = lanes[8 * i + 3];
-        const x = work[at] - (uiRe * wcRe + uiIm * wcIm + wiRe * ucRe + wiIm * ucIm);
-        const y = work[at + 1] - (uiIm * wcRe - uiRe * wcIm + wiIm * ucRe - wiRe * ucIm);
-        work[at] = x;
-        work[at + 1] = y;
-        uRe[uRow + i] = x;
-        uIm[uRow + i] = y;
-      }
-    } else {
-      for (let i = k, at = 2 * (k * n + k); i < n; i++, at += 2 * n) {
-        uRe[uRow + i] = work[at];
-        uIm[uRow + i] = work[at + 1];
-      }
-    }
-    this.diag[k] = uRe[uRow + k];
-    if (first >= n) return false;
     let alphaRe = uRe[uRow + first];
     let alphaIm = uIm[uRow + first];
-    let tail = 0;
-    for (let r = first + 1; r < n; r++) tail += uRe[uRow + r] * uRe[uRow + r] + uIm[uRow + r] * uIm[uRow + r];
     // u and τ may be computed from x/s for any s > 0 (P is unchanged); s is a power of two (exact), ≠ 1 only
     // for tiny columns whose squares lose precision.
     let s = 1;
@@ -216,6 +209,8 @@ export class HermitianTridiagonaliser {
         const b = uIm[uRow + r] * inverse;
         uRe[uRow + r] = a;
         uIm[uRow + r] = b;
+        lanes[8 * r + 4] = a;
+        lanes[8 * r + 5] = b;
         if (r > first) tail += a * a + b * b;
       }
       alphaRe = uRe[uRow + first];
@@ -246,11 +241,50 @@ export class HermitianTridiagonaliser {
     this.subIm[k] = -phIm * norm * s;
     uRe[uRow + first] = alphaRe + phRe * norm;
     uIm[uRow + first] = alphaIm + phIm * norm;
-    for (let r = first; r < n; r++) {
-      lanes[8 * r + 4] = uRe[uRow + r];
-      lanes[8 * r + 5] = uIm[uRow + r];
-    }
+    lanes[8 * first + 4] = uRe[uRow + first];
+    lanes[8 * first + 5] = uIm[uRow + first];
     return true;
+  }
+
+  /**
+   * The O(n) work before reflector k (the TypeScript route; eighTriangleSimd.ts has the SIMD one): when `updating`,
+   * w of step k−1 formed (toRankTwoVector) and its rank-2 update −u·wᴴ − w·uᴴ applied to column k (rows k…n−1),
+   * the column the reflector reads; then the column below the diagonal copied to row k of reflRe/reflIm and to the
+   * v lanes. Returns Σ_{r ≥ k+2} |x_r|².
+   */
+  private column(k: number, updating: boolean): number {
+    const n = this.n;
+    const work = this.work;
+    const lanes = this.lanes;
+    const uRe = this.reflRe;
+    const uIm = this.reflIm;
+    const uRow = k * n;
+    if (updating) {
+      this.toRankTwoVector(k - 1);
+      const ucRe = lanes[8 * k];
+      const ucIm = lanes[8 * k + 1];
+      const wcRe = lanes[8 * k + 2];
+      const wcIm = lanes[8 * k + 3];
+      for (let i = k, at = 2 * (k * n + k); i < n; i++, at += 2 * n) {
+        const uiRe = lanes[8 * i];
+        const uiIm = lanes[8 * i + 1];
+        const wiRe = lanes[8 * i + 2];
+        const wiIm = lanes[8 * i + 3];
+        work[at] -= uiRe * wcRe + uiIm * wcIm + wiRe * ucRe + wiIm * ucIm;
+        work[at + 1] -= uiIm * wcRe - uiRe * wcIm + wiIm * ucRe - wiRe * ucIm;
+      }
+    }
+    let tail = 0;
+    for (let i = k + 1, at = 2 * ((k + 1) * n + k); i < n; i++, at += 2 * n) {
+      const x = work[at];
+      const y = work[at + 1];
+      uRe[uRow + i] = x;
+      uIm[uRow + i] = y;
+      lanes[8 * i + 4] = x;
+      lanes[8 * i + 5] = y;
+      if (i > k + 1) tail += x * x + y * y;
+    }
+    return tail;
   }
 
   /**

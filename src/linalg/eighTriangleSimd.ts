@@ -187,6 +187,106 @@ class PassBuilder {
   }
 }
 
+/**
+ * `hermitianColumn(work, lanes, reflRe, reflIm, tailAt, n, k, tau, updating)`: the O(n) work of eighHouseholder.ts
+ * before reflector k, in one place. When `updating` (τ = τ_{k−1} ≠ 0): the next reflector and its product become
+ * u and p = τ·q, w = p − (τ·uᴴp/2)·u (indices k…n−1), and column k (rows k…n−1) gets the rank-2 update,
+ * a·conj(b) = a ⊙ (b_re, b_re) + s(a) ⊙ (b_im, −b_im) with b = w_k or u_k fixed. Then column k below the diagonal
+ * is copied to row k of reflRe/reflIm and to the v lanes, and Σ_{r ≥ k+2} |x_r|² is stored at tailAt.
+ */
+function columnFunction(): WasmFunction {
+  const l = new Locals();
+  const c = new Code();
+  const work = l.param('i32'), lanes = l.param('i32'), reflRe = l.param('i32'), reflIm = l.param('i32');
+  const tailAt = l.param('i32'), n = l.param('i32'), k = l.param('i32'), tau = l.param('f64');
+  const updating = l.param('i32');
+  const lj = l.local('i32'), lanesEnd = l.local('i32'), at = l.local('i32'), row = l.local('i32'), i = l.local('i32');
+  const half = l.local('f64');
+  const acc = l.local('v128'), x = l.local('v128'), ui = l.local('v128'), wi = l.local('v128');
+  const halfs = l.local('v128'), wRe = l.local('v128'), wIm = l.local('v128'), uRe = l.local('v128'), uIm = l.local('v128');
+  /** (lane, lane) or (lane, −lane) of the vector in `local`. */
+  const pair = (local: number, lane: number, negated: boolean) => {
+    c.get(local).f64x2ExtractLane(lane).f64x2Splat();
+    if (negated) c.get(local).f64x2ExtractLane(lane).f64Neg().f64x2ReplaceLane(1);
+  };
+  /** Entry (i, k): updated (when updating) and stored, or loaded; left in x. */
+  const entry = () => {
+    c.block(() => {
+      c.get(at).v128Load().set(x);
+      c.get(updating).i32Eqz().brIf(0);
+      c.get(lj).v128Load(0).set(ui);
+      c.get(lj).v128Load(16).get(halfs).get(ui).f64x2Mul().f64x2Sub().set(wi);
+      c.get(lj).get(wi).v128Store(16);
+      c.get(at);
+      c.get(x);
+      c.get(ui).get(wRe).f64x2Mul().f64x2Swapped(ui).get(wIm).f64x2Mul().f64x2Add();
+      c.get(wi).get(uRe).f64x2Mul().f64x2Swapped(wi).get(uIm).f64x2Mul().f64x2Add();
+      c.f64x2Add().f64x2Sub().tee(x).v128Store();
+    });
+  };
+  /** x to row k of reflRe/reflIm (entry i, at byte `row`) and, below the diagonal, to the v lanes. */
+  const gather = () => {
+    c.get(reflRe).get(row).i32Add().get(x).f64x2ExtractLane(0).f64Store();
+    c.get(reflIm).get(row).i32Add().get(x).f64x2ExtractLane(1).f64Store();
+    c.get(lj).get(x).v128Store(32);
+  };
+  const next = () => {
+    c.get(at).get(n).i32(16).i32Mul().i32Add().set(at);
+    c.get(row).i32(8).i32Add().set(row);
+    c.get(i).i32(1).i32Add().set(i);
+    c.get(lj).i32(64).i32Add().set(lj);
+  };
+  c.get(lanes).get(n).i32(64).i32Mul().i32Add().set(lanesEnd);
+  c.f64(0).f64x2Splat().set(acc);
+  c.block(() => {
+    c.get(updating).i32Eqz().brIf(0);
+    // u = v, p = τ·q, Σ u⊙p over k…n−1.
+    c.get(lanes).get(k).i32(64).i32Mul().i32Add().set(lj);
+    c.loop(() => {
+      c.get(lj).get(lj).v128Load(32).tee(ui).v128Store(0);
+      c.get(lj).get(lj).v128Load(48).get(tau).f64x2Splat().f64x2Mul().tee(x).v128Store(16);
+      c.get(acc).get(ui).get(x).f64x2Mul().f64x2Add().set(acc);
+      c.get(lj).i32(64).i32Add().tee(lj).get(lanesEnd).i32LtS().brIf(0);
+    });
+    c.f64(0.5).get(tau).f64Mul().get(acc).f64x2ExtractLane(0).get(acc).f64x2ExtractLane(1).f64Add().f64Mul().set(half);
+    c.get(half).f64x2Splat().set(halfs);
+    // w_k and u_k, the fixed factors of the column's update.
+    c.get(lanes).get(k).i32(64).i32Mul().i32Add().set(lj);
+    c.get(lj).v128Load(0).set(ui);
+    c.get(lj).v128Load(16).get(halfs).get(ui).f64x2Mul().f64x2Sub().set(wi);
+    pair(wi, 0, false); c.set(wRe);
+    pair(wi, 1, true); c.set(wIm);
+    pair(ui, 0, false); c.set(uRe);
+    pair(ui, 1, true); c.set(uIm);
+  });
+  c.f64(0).f64x2Splat().set(acc);
+  c.get(k).set(i);
+  c.get(lanes).get(k).i32(64).i32Mul().i32Add().set(lj);
+  c.get(work).get(k).get(n).i32Mul().get(k).i32Add().i32(16).i32Mul().i32Add().set(at);
+  c.get(k).get(n).i32Mul().get(k).i32Add().i32(8).i32Mul().set(row);
+  // The diagonal entry (k, k), then (k+1, k) — x₀ of the reflector — then the tail.
+  entry();
+  next();
+  c.block(() => {
+    c.get(i).get(n).i32GeS().brIf(0);
+    entry();
+    gather();
+    next();
+    c.block(() => {
+      c.get(i).get(n).i32GeS().brIf(0);
+      c.loop(() => {
+        entry();
+        gather();
+        c.get(acc).get(x).get(x).f64x2Mul().f64x2Add().set(acc);
+        next();
+        c.get(i).get(n).i32LtS().brIf(0);
+      });
+    });
+  });
+  c.get(tailAt).get(acc).f64x2ExtractLane(0).get(acc).f64x2ExtractLane(1).f64Add().f64Store();
+  return { name: 'hermitianColumn', params: l.params, locals: l.locals, body: c.bytes };
+}
+
 function passFunction(name: string, pass: Pass): WasmFunction {
   const builder = new PassBuilder(pass);
   const body = builder.body();
@@ -195,10 +295,12 @@ function passFunction(name: string, pass: Pass): WasmFunction {
 
 /**
  * The three passes, each `(work, lanes, swaps, n, start)` (addresses in bytes) over rows and columns start…n−1:
- * hermitianProduct (q = A₂₂·v), hermitianUpdate (the rank-2 update alone), hermitianUpdateProduct (both fused).
+ * hermitianProduct (q = A₂₂·v), hermitianUpdate (the rank-2 update alone), hermitianUpdateProduct (both fused);
+ * and hermitianColumn, the O(n) work before each reflector.
  */
 export function hermitianPassFunctions(): WasmFunction[] {
   return [
+    columnFunction(),
     passFunction('hermitianProduct', { update: false, product: true }),
     passFunction('hermitianUpdate', { update: true, product: false }),
     passFunction('hermitianUpdateProduct', { update: true, product: true }),

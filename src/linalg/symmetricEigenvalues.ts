@@ -23,8 +23,14 @@ export interface SymmetricEigenvaluesOptions {
   simd?: boolean;
 }
 
-/** The passes of one route: `run(work, u, w, v, q, from, kind)`, kind 0 product, 1 update, 2 both. */
-type Passes = (u: Float64Array, w: Float64Array, v: Float64Array, from: number, kind: 0 | 1 | 2) => void;
+/**
+ * The kernels of one route: the passes over indices from…n−1 (kind 0 the product q = A·v, 1 the rank-2 update,
+ * 2 both), and the column step before a reflector (see SymmetricEigenvalues.column).
+ */
+interface StepKernels {
+  pass(u: Float64Array, w: Float64Array, v: Float64Array, from: number, kind: 0 | 1 | 2): void;
+  column(start: number, tau: number, u: Float64Array, v: Float64Array): number;
+}
 
 /**
  * Eigenvalues of n×n real symmetric matrices with workspaces preallocated for one n; calls allocate nothing.
@@ -43,7 +49,7 @@ export class SymmetricEigenvalues {
   private readonly q: Float64Array;
   private readonly diag: Float64Array;
   private readonly offSquared: Float64Array;
-  private readonly passes: Passes;
+  private readonly kernels: StepKernels;
 
   constructor(n: number, options: SymmetricEigenvaluesOptions = {}) {
     this.n = n;
@@ -52,18 +58,28 @@ export class SymmetricEigenvalues {
     const module = options.simd === false || n < 3 ? null : simdModule();
     this.simd = module !== null;
     if (module !== null) {
-      // work, then u, v, w, q (8n bytes each) in the kernel's memory.
-      const { memory, exports } = simdInstance(module, 8 * n * n + 32 * n);
+      // work, then u, v, w, q (8n bytes each) and ‖x‖² of the column step, in the kernels' memory.
+      const { memory, exports } = simdInstance(module, 8 * n * n + 32 * n + 8);
       const view = (at: number, length: number) => new Float64Array(memory.buffer, 8 * at, length);
       this.work = view(0, n * n);
       this.u = view(n * n, n);
       this.v = view(n * n + n, n);
       this.w = view(n * n + 2 * n, n);
       this.q = view(n * n + 3 * n, n);
+      const norm2 = view(n * n + 4 * n, 1);
       type Pass = (work: number, u: number, w: number, v: number, q: number, n: number, from: number) => void;
-      const kinds = [exports.symmetricProduct, exports.symmetricUpdate, exports.symmetricUpdateProduct] as Pass[];
-      const qAt = this.q.byteOffset;
-      this.passes = (u, w, v, from, kind) => kinds[kind](0, u.byteOffset, w.byteOffset, v.byteOffset, qAt, n, from);
+      const passes = [exports.symmetricProduct, exports.symmetricUpdate, exports.symmetricUpdateProduct] as Pass[];
+      const column = exports.symmetricColumn as (
+        work: number, u: number, w: number, v: number, q: number, normAt: number, n: number, start: number, tau: number,
+      ) => void;
+      const { w, q } = this;
+      this.kernels = {
+        pass: (u, w, v, from, kind) => passes[kind](0, u.byteOffset, w.byteOffset, v.byteOffset, q.byteOffset, n, from),
+        column: (start, tau, u, v) => {
+          column(0, u.byteOffset, w.byteOffset, v.byteOffset, q.byteOffset, norm2.byteOffset, n, start, tau);
+          return norm2[0];
+        },
+      };
     } else {
       this.work = new Float64Array(n * n);
       this.u = new Float64Array(n);
@@ -71,9 +87,12 @@ export class SymmetricEigenvalues {
       this.w = new Float64Array(n);
       this.q = new Float64Array(n);
       const { work, q } = this;
-      this.passes = (u, w, v, from, kind) => {
-        if (kind === 0) product(n, work, v, q, from);
-        else updateAndProduct(n, work, u, w, v, q, from, kind === 2);
+      this.kernels = {
+        pass: (u, w, v, from, kind) => {
+          if (kind === 0) product(n, work, v, q, from);
+          else updateAndProduct(n, work, u, w, v, q, from, kind === 2);
+        },
+        column: (start, tau, u, v) => this.column(start, tau, u, v),
       };
     }
   }
@@ -117,30 +136,19 @@ export class SymmetricEigenvalues {
    * bound these loops in V8, so one pass instead of two is what pays.
    */
   private reduce(): void {
-    const { n, work, diag, offSquared } = this;
+    const { n, work, diag, offSquared, kernels } = this;
     let u = this.u;
     let v = this.v;
     const w = this.w;
-    const q = this.q;
-    const passes = this.passes;
-    let tau = n >= 3 ? this.reflector(0, u) : 0;
-    if (tau !== 0) passes(u, w, u, 1, 0);
+    let tau = n >= 3 ? this.reflector(0, kernels.column(0, 0, u, u), u) : 0;
+    if (tau !== 0) kernels.pass(u, w, u, 1, 0);
     for (let k = 0; k + 2 < n; k++) {
       diag[k] = work[k * n + k];
       const start = k + 1;
-      if (tau !== 0) {
-        // w = τ·q − (τ²·qᵀu/2)·u, then column `start` of A₂₂ updated ahead of the pass.
-        let qu = 0;
-        for (let i = start; i < n; i++) qu += q[i] * u[i];
-        const half = 0.5 * tau * tau * qu;
-        for (let i = start; i < n; i++) w[i] = tau * q[i] - half * u[i];
-        const us = u[start];
-        const ws = w[start];
-        for (let i = start; i < n; i++) work[i * n + start] -= u[i] * ws + w[i] * us;
-      }
-      const nextTau = k + 3 < n ? this.reflector(start, v) : 0;
-      if (tau !== 0) passes(u, w, v, start + 1, nextTau !== 0 ? 2 : 1);
-      else if (nextTau !== 0) passes(u, w, v, start + 1, 0);
+      const norm2 = kernels.column(start, tau, u, v);
+      const nextTau = k + 3 < n ? this.reflector(start, norm2, v) : 0;
+      if (tau !== 0) kernels.pass(u, w, v, start + 1, nextTau !== 0 ? 2 : 1);
+      else if (nextTau !== 0) kernels.pass(u, w, v, start + 1, 0);
       [u, v] = [v, u];
       tau = nextTau;
     }
@@ -154,18 +162,38 @@ export class SymmetricEigenvalues {
   }
 
   /**
-   * The reflector of column `col` (rows col+1…n−1) into `out`: v = x − β·e₁, β = −sign(x₀)·‖x‖ (no cancellation
-   * in v₀), vᵀv = 2α(α + |x₀|) so τ = 1/(α(α + |x₀|)). Sets offSquared[col] = β². Returns τ, or 0 when the column
-   * is already reduced (nothing below its first sub-diagonal entry).
+   * The O(n) work before the reflector of column `start` (the TypeScript route; symmetricTriangleSimd.ts has the
+   * SIMD one). When τ of the current reflector u is not 0: w = τ·q − (τ²·qᵀu/2)·u, and column `start` (rows
+   * start…n−1) gets its rank-2 update ahead of the pass. Then the column below the diagonal is copied into `out`;
+   * returns its ‖x‖².
    */
-  private reflector(col: number, out: Float64Array): number {
-    const { n, work } = this;
+  private column(start: number, tau: number, u: Float64Array, out: Float64Array): number {
+    const { n, work, w, q } = this;
+    if (tau !== 0) {
+      let qu = 0;
+      for (let i = start; i < n; i++) qu += q[i] * u[i];
+      const half = 0.5 * tau * tau * qu;
+      for (let i = start; i < n; i++) w[i] = tau * q[i] - half * u[i];
+      const us = u[start];
+      const ws = w[start];
+      for (let i = start; i < n; i++) work[i * n + start] -= u[i] * ws + w[i] * us;
+    }
     let norm2 = 0;
-    for (let i = col + 1; i < n; i++) {
-      const x = work[i * n + col];
+    for (let i = start + 1; i < n; i++) {
+      const x = work[i * n + start];
       norm2 += x * x;
       out[i] = x;
     }
+    return norm2;
+  }
+
+  /**
+   * The reflector of column `col` (rows col+1…n−1, copied into `out` with ‖x‖² = norm2 by the column step):
+   * v = x − β·e₁, β = −sign(x₀)·‖x‖ (no cancellation in v₀), vᵀv = 2α(α + |x₀|) so τ = 1/(α(α + |x₀|)). Sets
+   * offSquared[col] = β². Returns τ, or 0 when the column is already reduced (nothing below its first
+   * sub-diagonal entry).
+   */
+  private reflector(col: number, norm2: number, out: Float64Array): number {
     const x0 = out[col + 1];
     this.offSquared[col] = norm2;
     if (norm2 === x0 * x0) return 0;

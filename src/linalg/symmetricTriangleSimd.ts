@@ -183,6 +183,65 @@ class PassBuilder {
   }
 }
 
+/**
+ * `symmetricColumn(work, u, w, v, q, normAt, n, start, tau)`: the O(n) work of symmetricEigenvalues.ts before the
+ * reflector of column `start`, in scalars. When τ (of the current reflector u) ≠ 0: w = τ·q − (τ²·qᵀu/2)·u and
+ * the column's rank-2 update (rows start…n−1); then the column below the diagonal is copied into v and Σ x² is
+ * stored at normAt.
+ */
+function columnFunction(): WasmFunction {
+  const l = new Locals();
+  const c = new Code();
+  const work = l.param('i32'), u = l.param('i32'), w = l.param('i32'), v = l.param('i32'), q = l.param('i32');
+  const normAt = l.param('i32'), n = l.param('i32'), start = l.param('i32'), tau = l.param('f64');
+  const ib = l.local('i32'), end = l.local('i32'), at = l.local('i32'), rowBytes = l.local('i32');
+  const half = l.local('f64'), us = l.local('f64'), ws = l.local('f64'), wi = l.local('f64'), x = l.local('f64');
+  const norm2 = l.local('f64');
+  const load = (base: number) => c.get(base).get(ib).i32Add().f64Load();
+  /** w_i = τ·q_i − half·u_i (i at byte ib). */
+  const rankTwo = () => { load(q).get(tau).f64Mul().get(half); load(u); c.f64Mul().f64Sub(); };
+  const updating = (inner: () => void) => c.block(() => { c.get(tau).f64(0).f64Eq().brIf(0); inner(); });
+  c.get(n).i32(3).i32Shl().tee(rowBytes).set(end);
+  c.f64(0).set(norm2);
+  updating(() => {
+    c.f64(0).set(x);
+    c.get(start).i32(3).i32Shl().set(ib);
+    c.loop(() => {
+      c.get(x); load(q); load(u); c.f64Mul().f64Add().set(x);
+      c.get(ib).i32(8).i32Add().tee(ib).get(end).i32LtS().brIf(0);
+    });
+    c.f64(0.5).get(tau).f64Mul().get(tau).f64Mul().get(x).f64Mul().set(half);
+    c.get(start).i32(3).i32Shl().set(ib);
+    load(u); c.set(us);
+    rankTwo(); c.set(ws);
+  });
+  // Rows start…n−1 of the column: (i, start) at work + 8·(i·n + start).
+  c.get(start).i32(3).i32Shl().set(ib);
+  c.get(work).get(start).get(n).i32Mul().get(start).i32Add().i32(3).i32Shl().i32Add().set(at);
+  c.loop(() => {
+    c.get(at).f64Load().set(x);
+    updating(() => {
+      // x − (u_i·w_s + w_i·u_s), w_i kept.
+      c.get(x);
+      load(u); c.get(ws).f64Mul();
+      rankTwo(); c.tee(wi).get(us).f64Mul();
+      c.f64Add().f64Sub().set(x);
+      c.get(w).get(ib).i32Add().get(wi).f64Store();
+      c.get(at).get(x).f64Store();
+    });
+    // Below the diagonal: into v, and into ‖x‖².
+    c.block(() => {
+      c.get(ib).get(start).i32(3).i32Shl().i32Eq().brIf(0);
+      c.get(v).get(ib).i32Add().get(x).f64Store();
+      c.get(norm2).get(x).get(x).f64Mul().f64Add().set(norm2);
+    });
+    c.get(at).get(rowBytes).i32Add().set(at);
+    c.get(ib).i32(8).i32Add().tee(ib).get(end).i32LtS().brIf(0);
+  });
+  c.get(normAt).get(norm2).f64Store();
+  return { name: 'symmetricColumn', params: l.params, locals: l.locals, body: c.bytes };
+}
+
 function passFunction(name: string, pass: Pass): WasmFunction {
   const builder = new PassBuilder(pass);
   const body = builder.body();
@@ -191,10 +250,12 @@ function passFunction(name: string, pass: Pass): WasmFunction {
 
 /**
  * The three passes, each `(work, u, w, v, q, n, from)` with byte addresses: symmetricProduct (q = A·v),
- * symmetricUpdate (the rank-2 update alone) and symmetricUpdateProduct (both in one pass).
+ * symmetricUpdate (the rank-2 update alone) and symmetricUpdateProduct (both in one pass); and symmetricColumn,
+ * the O(n) work before each reflector.
  */
 export function symmetricPassFunctions(): WasmFunction[] {
   return [
+    columnFunction(),
     passFunction('symmetricProduct', { update: false, product: true }),
     passFunction('symmetricUpdate', { update: true, product: false }),
     passFunction('symmetricUpdateProduct', { update: true, product: true }),

@@ -126,6 +126,7 @@ export class Code {
   i32GeS(): this { return this.op(0x4e); }
   i32LtS(): this { return this.op(0x48); }
   i32Eqz(): this { return this.op(0x45); }
+  i32Eq(): this { return this.op(0x46); }
   i32Shl(): this { return this.op(0x74); }
 
   f64Load(offset = 0): this { return this.memory(0x2b, 3, offset); }
@@ -134,6 +135,7 @@ export class Code {
   f64Sub(): this { return this.op(0xa1); }
   f64Mul(): this { return this.op(0xa2); }
   f64Neg(): this { return this.op(0x9a); }
+  f64Eq(): this { return this.op(0x61); }
 
   v128Load(offset = 0): this { return this.memory(0x00, 3, offset, true); }
   v128Store(offset = 0): this { return this.memory(0x0b, 3, offset, true); }
