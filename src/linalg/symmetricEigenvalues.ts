@@ -18,9 +18,18 @@ function powerOfTwoBelow(x: number): number {
   return 2 ** Math.ceil(Math.log2(x));
 }
 
+/**
+ * Below this order the default route is TypeScript: the two WebAssembly calls of each step cost more than the
+ * SIMD passes save (measured break-even between n = 6 and 8; DEVELOPERS.md "The eigensolver").
+ */
+export const SYMMETRIC_SIMD_FROM = 8;
+
 /** Options of SymmetricEigenvalues (tests and benchmarks; the default picks the fastest route). */
 export interface SymmetricEigenvaluesOptions {
-  /** Run the reduction's passes in WebAssembly SIMD where available (default true); false forces TypeScript. */
+  /**
+   * The reduction's passes and column steps: in WebAssembly SIMD where available from n = SYMMETRIC_SIMD_FROM
+   * (default), wherever available and needed (true: n ≥ 3; tests), or in TypeScript (false).
+   */
   simd?: boolean;
 }
 
@@ -56,7 +65,8 @@ export class SymmetricEigenvalues {
     this.n = n;
     this.diag = new Float64Array(n);
     this.offSquared = new Float64Array(n);
-    const module = options.simd === false || n < 3 ? null : simdModule();
+    const wanted = options.simd ?? n >= SYMMETRIC_SIMD_FROM;
+    const module = !wanted || n < 3 ? null : simdModule();
     this.simd = module !== null;
     if (module !== null) {
       // work, then u, v, w, q (8n bytes each) and ‖x‖² of the column step, in the kernels' memory.

@@ -7,7 +7,7 @@ import fc from 'fast-check';
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { xorshift32 } from '../../src/linalg/eighRandom.ts';
-import { SymmetricEigenvalues } from '../../src/linalg/symmetricEigenvalues.ts';
+import { SYMMETRIC_SIMD_FROM, SymmetricEigenvalues } from '../../src/linalg/symmetricEigenvalues.ts';
 
 function solveOn(matrix: number[][], simd: boolean): Float64Array {
   const n = matrix.length;
@@ -118,3 +118,12 @@ for (const simd of [true, false]) {
     });
   });
 }
+
+describe('SymmetricEigenvalues route by default', () => {
+  it('TypeScript below SYMMETRIC_SIMD_FROM, WebAssembly SIMD from there (Node ≥ 16.4 has it; common practice)', () => {
+    expect(new SymmetricEigenvalues(SYMMETRIC_SIMD_FROM - 1).simd).toBe(false);
+    expect(new SymmetricEigenvalues(SYMMETRIC_SIMD_FROM).simd).toBe(true);
+    expect(new SymmetricEigenvalues(128, { simd: false }).simd).toBe(false);
+    expect(new SymmetricEigenvalues(3, { simd: true }).simd).toBe(true);
+  });
+});
