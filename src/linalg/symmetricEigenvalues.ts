@@ -19,8 +19,8 @@ function powerOfTwoBelow(x: number): number {
 }
 
 /**
- * Below this order the default route is TypeScript: the two WebAssembly calls of each step cost more than the
- * SIMD passes save (measured break-even between n = 6 and 8; DEVELOPERS.md "The eigensolver").
+ * Below this order the default route is TypeScript: the two routes take the same time there (measured at n = 4–6;
+ * at n = 3 TypeScript is faster), and TypeScript needs no WebAssembly memory (64 KiB a solver, however small n).
  */
 export const SYMMETRIC_SIMD_FROM = 8;
 
@@ -34,22 +34,13 @@ export interface SymmetricEigenvaluesOptions {
 }
 
 /**
- * The kernels of one route: the passes over indices from…n−1 (kind 0 the product q = A·v, 1 the rank-2 update,
- * 2 both), and the column step before a reflector (see SymmetricEigenvalues.column).
- */
-interface StepKernels {
-  pass(u: Float64Array, w: Float64Array, v: Float64Array, from: number, kind: 0 | 1 | 2): void;
-  column(start: number, tau: number, u: Float64Array, v: Float64Array): number;
-}
-
-/**
  * Eigenvalues of n×n real symmetric matrices with workspaces preallocated for one n; calls allocate nothing.
  * Ascending output. An infinite or NaN entry, or a QR iteration that fails to converge, gives NaN everywhere —
  * the sentinel of HermitianEigensolver; it never throws.
  */
 export class SymmetricEigenvalues {
   readonly n: number;
-  /** True when the reduction's passes run in WebAssembly SIMD (symmetricTriangleSimd.ts). */
+  /** True when the reduction runs in WebAssembly SIMD (symmetricTriangleSimd.ts), false for TypeScript. */
   readonly simd: boolean;
   private readonly work: Float64Array;
   // Reflectors of the current and the next step (swapped each step), the rank-2 vector w, the product q = A₂₂·v.
@@ -59,52 +50,33 @@ export class SymmetricEigenvalues {
   private readonly q: Float64Array;
   private readonly diag: Float64Array;
   private readonly offSquared: Float64Array;
-  private readonly kernels: StepKernels;
+  /** The whole reduction in one WebAssembly call (symmetricReduce), or null on the TypeScript route. */
+  private readonly reduceSimd: (() => void) | null;
 
   constructor(n: number, options: SymmetricEigenvaluesOptions = {}) {
     this.n = n;
-    this.diag = new Float64Array(n);
-    this.offSquared = new Float64Array(n);
     const wanted = options.simd ?? n >= SYMMETRIC_SIMD_FROM;
     const module = !wanted || n < 3 ? null : simdModule();
     this.simd = module !== null;
     if (module !== null) {
-      // work, then u, v, w, q (8n bytes each) and ‖x‖² of the column step, in the kernels' memory.
-      const { memory, exports } = simdInstance(module, 8 * n * n + 32 * n + 8);
+      // In the kernels' memory (f64 units): work (n²), then u, v, w, q, diag, offSquared (n each), ‖x‖² (1).
+      const { memory, exports } = simdInstance(module, 8 * (n * n + 6 * n + 1));
       const view = (at: number, length: number) => new Float64Array(memory.buffer, 8 * at, length);
+      const at = (i: number) => n * n + i * n;
       this.work = view(0, n * n);
-      this.u = view(n * n, n);
-      this.v = view(n * n + n, n);
-      this.w = view(n * n + 2 * n, n);
-      this.q = view(n * n + 3 * n, n);
-      const norm2 = view(n * n + 4 * n, 1);
-      type Pass = (work: number, u: number, w: number, v: number, q: number, n: number, from: number) => void;
-      const passes = [exports.symmetricProduct, exports.symmetricUpdate, exports.symmetricUpdateProduct] as Pass[];
-      const column = exports.symmetricColumn as (
-        work: number, u: number, w: number, v: number, q: number, normAt: number, n: number, start: number, tau: number,
-      ) => void;
-      const { w, q } = this;
-      this.kernels = {
-        pass: (u, w, v, from, kind) => passes[kind](0, u.byteOffset, w.byteOffset, v.byteOffset, q.byteOffset, n, from),
-        column: (start, tau, u, v) => {
-          column(0, u.byteOffset, w.byteOffset, v.byteOffset, q.byteOffset, norm2.byteOffset, n, start, tau);
-          return norm2[0];
-        },
-      };
+      [this.u, this.v, this.w, this.q, this.diag, this.offSquared] = [0, 1, 2, 3, 4, 5].map((i) => view(at(i), n));
+      const run = exports.symmetricReduce as (...addresses: number[]) => void;
+      const bytes = [0, 1, 2, 3, 4, 5, 6].map((i) => 8 * at(i));
+      this.reduceSimd = () => run(0, ...bytes, n);
     } else {
       this.work = new Float64Array(n * n);
       this.u = new Float64Array(n);
       this.v = new Float64Array(n);
       this.w = new Float64Array(n);
       this.q = new Float64Array(n);
-      const { work, q } = this;
-      this.kernels = {
-        pass: (u, w, v, from, kind) => {
-          if (kind === 0) product(n, work, v, q, from);
-          else updateAndProduct(n, work, u, w, v, q, from, kind === 2);
-        },
-        column: (start, tau, u, v) => this.column(start, tau, u, v),
-      };
+      this.diag = new Float64Array(n);
+      this.offSquared = new Float64Array(n);
+      this.reduceSimd = null;
     }
   }
 
@@ -123,8 +95,12 @@ export class SymmetricEigenvalues {
     const scale = largest > 0 ? powerOfTwoBelow(largest) : 1;
     const work = this.work;
     const inverse = 1 / scale;
-    for (let i = 0; i < n * n; i++) work[i] = matrix[i] * inverse;
-    this.reduce();
+    for (let r = 0; r < n; r++) {
+      for (let i = r * n, end = i + r + 1; i < end; i++) work[i] = matrix[i] * inverse;
+    }
+    if (this.reduceSimd !== null) this.reduceSimd();
+    else this.reduce();
+    this.lastEntries();
     const diag = this.diag;
     if (!tridiagonalEigenvaluesRootFree(diag, this.offSquared, n)) return out.fill(NaN, 0, n);
     // Insertion sort: n is small and deflated blocks come out partly ordered.
@@ -141,28 +117,33 @@ export class SymmetricEigenvalues {
   }
 
   /**
-   * Tridiagonalises `work` (lower triangle) in place: diag and offSquared (T[k+1][k]², last entry 0).
+   * Tridiagonalises `work` (lower triangle) in place, the TypeScript route (symmetricReduce of
+   * symmetricTriangleSimd.ts is the same, step for step): diag and offSquared up to n−3 (lastEntries does the rest).
    * The rank-2 update of step k and the product A₂₂·v of step k+1 share one pass over the triangle (column k+1
    * is updated first, so the next reflector v is known before the pass): typed-array accesses, not flops,
    * bound these loops in V8, so one pass instead of two is what pays.
    */
   private reduce(): void {
-    const { n, work, diag, offSquared, kernels } = this;
+    const { n, work, diag, w, q } = this;
     let u = this.u;
     let v = this.v;
-    const w = this.w;
-    let tau = n >= 3 ? this.reflector(0, kernels.column(0, 0, u, u), u) : 0;
-    if (tau !== 0) kernels.pass(u, w, u, 1, 0);
+    let tau = n >= 3 ? this.reflector(0, this.column(0, 0, u, u), u) : 0;
+    if (tau !== 0) product(n, work, u, q, 1);
     for (let k = 0; k + 2 < n; k++) {
       diag[k] = work[k * n + k];
       const start = k + 1;
-      const norm2 = kernels.column(start, tau, u, v);
+      const norm2 = this.column(start, tau, u, v);
       const nextTau = k + 3 < n ? this.reflector(start, norm2, v) : 0;
-      if (tau !== 0) kernels.pass(u, w, v, start + 1, nextTau !== 0 ? 2 : 1);
-      else if (nextTau !== 0) kernels.pass(u, w, v, start + 1, 0);
+      if (tau !== 0) updateAndProduct(n, work, u, w, v, q, start + 1, nextTau !== 0);
+      else if (nextTau !== 0) product(n, work, v, q, start + 1);
       [u, v] = [v, u];
       tau = nextTau;
     }
+  }
+
+  /** The last 2×2 of T, which no reflector touches: diag[n−2], diag[n−1], offSquared[n−2] (offSquared[n−1] = 0). */
+  private lastEntries(): void {
+    const { n, work, diag, offSquared } = this;
     if (n >= 2) {
       diag[n - 2] = work[(n - 2) * n + n - 2];
       const last = work[(n - 1) * n + n - 2];

@@ -242,6 +242,90 @@ function columnFunction(): WasmFunction {
   return { name: 'symmetricColumn', params: l.params, locals: l.locals, body: c.bytes };
 }
 
+/**
+ * `symmetricReduce(work, u, v, w, q, diag, offSquared, normAt, n)`, n ≥ 3: the whole reduction of
+ * symmetricEigenvalues.ts in one call (its TypeScript `reduce` step for step: the column step, the reflector, the
+ * pass; u and v swap roles each step), so that a solve pays one call into WebAssembly, not two per step. Leaves
+ * diag[0…n−3] and offSquared[0…n−3]; the last 2×2 is read by the caller.
+ */
+function reduceFunction(): WasmFunction {
+  const l = new Locals();
+  const work = l.param('i32'), u0 = l.param('i32'), v0 = l.param('i32'), w = l.param('i32'), q = l.param('i32');
+  const diag = l.param('i32'), offSquared = l.param('i32'), normAt = l.param('i32'), n = l.param('i32');
+  const u = l.local('i32'), v = l.local('i32'), k = l.local('i32'), swap = l.local('i32');
+  const tau = l.local('f64'), nextTau = l.local('f64'), norm2 = l.local('f64'), x0 = l.local('f64');
+  const alpha = l.local('f64');
+  const body = (indexOf: (name: string) => number): number[] => {
+    const c = new Code();
+    /**
+     * `result` = τ of the reflector of the column whose index `column` pushes, from its copy at `out` and ‖x‖² at
+     * normAt (symmetricEigenvalues.ts, reflector()); sets offSquared[col] and out[col + 1].
+     */
+    const reflector = (column: () => void, out: number, result: number) => {
+      c.get(normAt).f64Load().set(norm2);
+      // x0 = out[col + 1]; offSquared[col] = ‖x‖².
+      c.get(out); column(); c.i32(1).i32Add().i32(3).i32Shl().i32Add().f64Load().set(x0);
+      c.get(offSquared); column(); c.i32(3).i32Shl().i32Add().get(norm2).f64Store();
+      c.f64(0).set(result);
+      c.block(() => {
+        c.get(norm2).get(x0).get(x0).f64Mul().f64Eq().brIf(0);
+        c.get(norm2).f64Sqrt().set(alpha);
+        // out[col + 1] = x0 ≥ 0 ? x0 + α : x0 − α (no cancellation); τ = 1/(α(α + |x0|)).
+        c.get(out); column(); c.i32(1).i32Add().i32(3).i32Shl().i32Add();
+        c.get(x0).get(alpha).f64Add().get(x0).get(alpha).f64Sub().get(x0).f64(0).f64Ge().select().f64Store();
+        c.f64(1).get(alpha).get(alpha).get(x0).f64Abs().f64Add().f64Mul().f64Div().set(result);
+      });
+    };
+    const pass = (name: string) => {
+      c.get(work).get(u).get(w).get(v).get(q).get(n).get(k).i32(2).i32Add().call(indexOf(name));
+    };
+    c.get(u0).set(u);
+    c.get(v0).set(v);
+    // Column 0 into u (nothing to update yet), its reflector, and q = A·u from index 1.
+    c.get(work).get(u).get(w).get(u).get(q).get(normAt).get(n).i32(0).f64(0).call(indexOf('symmetricColumn'));
+    reflector(() => c.i32(0), u, tau);
+    c.block(() => {
+      c.get(tau).f64(0).f64Eq().brIf(0);
+      c.get(work).get(u).get(w).get(u).get(q).get(n).i32(1).call(indexOf('symmetricProduct'));
+    });
+    c.i32(0).set(k);
+    c.loop(() => {
+      // diag[k] = A[k][k]; the column step of column k+1 (w and its update when τ ≠ 0), copied into v.
+      c.get(diag).get(k).i32(3).i32Shl().i32Add();
+      c.get(work).get(k).get(n).i32Mul().get(k).i32Add().i32(3).i32Shl().i32Add().f64Load().f64Store();
+      c.get(work).get(u).get(w).get(v).get(q).get(normAt).get(n).get(k).i32(1).i32Add().get(tau)
+        .call(indexOf('symmetricColumn'));
+      c.f64(0).set(nextTau);
+      c.block(() => {
+        c.get(k).i32(3).i32Add().get(n).i32GeS().brIf(0);
+        reflector(() => c.get(k).i32(1).i32Add(), v, nextTau);
+      });
+      // The pass from k+2: update and product, the update alone, or the product alone.
+      c.block(() => {
+        c.block(() => {
+          c.get(tau).f64(0).f64Eq().brIf(0);
+          c.block(() => {
+            c.get(nextTau).f64(0).f64Eq().brIf(0);
+            pass('symmetricUpdateProduct');
+            c.br(2);
+          });
+          pass('symmetricUpdate');
+          c.br(1);
+        });
+        c.get(nextTau).f64(0).f64Eq().brIf(0);
+        pass('symmetricProduct');
+      });
+      c.get(u).set(swap);
+      c.get(v).set(u);
+      c.get(swap).set(v);
+      c.get(nextTau).set(tau);
+      c.get(k).i32(1).i32Add().tee(k).i32(2).i32Add().get(n).i32LtS().brIf(0);
+    });
+    return c.bytes;
+  };
+  return { name: 'symmetricReduce', params: l.params, locals: l.locals, body };
+}
+
 function passFunction(name: string, pass: Pass): WasmFunction {
   const builder = new PassBuilder(pass);
   const body = builder.body();
@@ -250,11 +334,12 @@ function passFunction(name: string, pass: Pass): WasmFunction {
 
 /**
  * The three passes, each `(work, u, w, v, q, n, from)` with byte addresses: symmetricProduct (q = A·v),
- * symmetricUpdate (the rank-2 update alone) and symmetricUpdateProduct (both in one pass); and symmetricColumn,
- * the O(n) work before each reflector.
+ * symmetricUpdate (the rank-2 update alone) and symmetricUpdateProduct (both in one pass); symmetricColumn, the
+ * O(n) work before each reflector; and symmetricReduce, which runs them all.
  */
 export function symmetricPassFunctions(): WasmFunction[] {
   return [
+    reduceFunction(),
     columnFunction(),
     passFunction('symmetricProduct', { update: false, product: true }),
     passFunction('symmetricUpdate', { update: true, product: false }),

@@ -10,12 +10,15 @@
 export type ValueType = 'i32' | 'f64' | 'v128';
 const TYPE_CODE: Record<ValueType, number> = { i32: 0x7f, f64: 0x7c, v128: 0x7b };
 
-/** One function: parameter and local types by name, and its body as bytes (see `Code`). */
+/**
+ * One function: parameter and local types by name, and its body as bytes (see `Code`) — or as a function of
+ * `indexOf`, which gives the index of another function of the module by name (for `Code.call`).
+ */
 export interface WasmFunction {
   name: string;
   params: ValueType[];
   locals: ValueType[];
-  body: number[];
+  body: number[] | ((indexOf: (name: string) => number) => number[]);
 }
 
 function unsigned(value: number, out: number[]): void {
@@ -118,6 +121,10 @@ export class Code {
   /** loop … end; `br` depth 0 inside jumps back to its start. */
   loop(inner: (code: this) => void): this { this.op(0x03, 0x40); inner(this); return this.op(0x0b); }
   brIf(depth: number): this { this.bytes.push(0x0d); unsigned(depth, this.bytes); return this; }
+  /** Calls function `index` of the module (its parameters taken from the stack). */
+  call(index: number): this { this.bytes.push(0x10); unsigned(index, this.bytes); return this; }
+  /** The first or the second of two values by an i32 condition (≠ 0: the first). */
+  select(): this { return this.op(0x1b); }
   br(depth: number): this { this.bytes.push(0x0c); unsigned(depth, this.bytes); return this; }
 
   i32Add(): this { return this.op(0x6a); }
@@ -136,6 +143,10 @@ export class Code {
   f64Mul(): this { return this.op(0xa2); }
   f64Neg(): this { return this.op(0x9a); }
   f64Eq(): this { return this.op(0x61); }
+  f64Ge(): this { return this.op(0x66); }
+  f64Abs(): this { return this.op(0x99); }
+  f64Sqrt(): this { return this.op(0x9f); }
+  f64Div(): this { return this.op(0xa3); }
 
   v128Load(offset = 0): this { return this.memory(0x00, 3, offset, true); }
   v128Store(offset = 0): this { return this.memory(0x0b, 3, offset, true); }
@@ -158,6 +169,11 @@ export class Code {
 
 /** The bytes of a module importing env.memory and exporting `functions` (each returns nothing). */
 export function assembleModule(functions: WasmFunction[]): Uint8Array<ArrayBuffer> {
+  const indexOf = (name: string): number => {
+    const index = functions.findIndex((f) => f.name === name);
+    if (index < 0) throw new Error(`no function ${name} in the module`);
+    return index;
+  };
   const out = [0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00];
   section(1, (() => {
     const types = functions.map((f) => {
@@ -191,7 +207,7 @@ export function assembleModule(functions: WasmFunction[]): Uint8Array<ArrayBuffe
       const locals: number[][] = f.locals.map((t) => [0x01, TYPE_CODE[t]]);
       const code: number[] = [];
       vector(locals, code);
-      code.push(...f.body, 0x0b);
+      code.push(...(typeof f.body === 'function' ? f.body(indexOf) : f.body), 0x0b);
       const entry: number[] = [];
       unsigned(code.length, entry);
       return [...entry, ...code];
