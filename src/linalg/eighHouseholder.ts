@@ -12,9 +12,10 @@
  *
  * Each step applies A₂₂ ← P·A₂₂·P = A₂₂ − u·wᴴ − w·uᴴ with p = τ·A₂₂·u, w = p − (τ·uᴴp/2)·u, on the lower
  * triangle only. The rank-2 update of step k and the product A₂₂·u_{k+1} of step k+1 share one pass over the
- * triangle (column k+1 is updated first, so u_{k+1} is known before the pass; eighTriangle.ts). The passes run in
- * WebAssembly SIMD where the runtime has it (eighTriangleSimd.ts; `work` and `lanes` then live in its memory),
- * in TypeScript otherwise; the O(n) work of each step (reflector, column k+1, w) is TypeScript on either route.
+ * triangle (column k+1 is updated first, so u_{k+1} is known before the pass; eighTriangle.ts). The passes and the
+ * O(n) column step before each reflector (w, column k+1's update, its copy) run in WebAssembly SIMD where the runtime
+ * has it (eighTriangleSimd.ts; `work`, `lanes` and reflRe/reflIm then live in its memory), in TypeScript otherwise;
+ * the reflector's scalars and the rescaling of tiny columns are TypeScript on either route.
  */
 
 import { productOnly, updateAndProduct, updateOnly } from './eighTriangle.ts';
@@ -41,7 +42,7 @@ const SCALE_FREE_HIGH = 2 ** 100;
 export class HermitianTridiagonaliser {
   /** Matrix order. */
   readonly n: number;
-  /** Reflector u_k in row k, entries k+1…n−1. */
+  /** Reflector u_k in row k, entries k+1…n−1 (the row is not used where τ_k = 0). */
   readonly reflRe: Float64Array;
   readonly reflIm: Float64Array;
   /** τ_k of each reflector; 0 where the column needed no reflection. */
@@ -57,8 +58,10 @@ export class HermitianTridiagonaliser {
   private readonly lanes: Float64Array;
   private readonly kernels: StepKernels;
 
-  /** Options: `simd` (default true) runs the O(n²) passes and the O(n) column steps in WebAssembly SIMD where
-   * available (n ≥ 3; smaller orders need no pass); false forces TypeScript. */
+  /**
+   * Options: `simd` (default true) runs the passes and the column steps in WebAssembly SIMD where available and
+   * needed (n ≥ 3: smaller orders have no pass); false forces TypeScript.
+   */
   constructor(n: number, options: { simd?: boolean } = {}) {
     this.n = n;
     this.tau = new Float64Array(n);

@@ -10,7 +10,8 @@
  *   Σ_j x_j·v_j = (Σ x⊙v)₀ − (Σ x⊙v)₁ + i·((Σ s(x)⊙v)₀ + (Σ s(x)⊙v)₁)   (row i's sum, two accumulators).
  * One row at a time: per entry that is 8 multiplications, 8 additions and one shuffle on f64x2, with the row's
  * six constants and two sums in registers. Rows in pairs (as in TypeScript, where loads are what cost) measured
- * slower here: 16 constants and sums no longer fit the 16 vector registers.
+ * slower here: 16 constants and sums no longer fit the 16 vector registers. The row loop is software-pipelined.
+ * hermitianColumn is the O(n) step before each reflector (eighHouseholder.ts `column`).
  */
 import { Code, Locals, type WasmFunction } from './wasmAssembler.ts';
 
