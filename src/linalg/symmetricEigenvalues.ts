@@ -7,7 +7,9 @@
  *
  * Layout: n×n row-major; only the lower triangle (c ≤ r) is read, the input is untouched.
  * Each step k applies the reflector P = I − τ·u·uᵀ on indices k+1…n−1 to the trailing block, A₂₂ ← P·A₂₂·P =
- * A₂₂ − u·wᵀ − w·uᵀ with p = τ·A₂₂·u, w = p − (τ·pᵀu/2)·u, on the lower triangle.
+ * A₂₂ − u·wᵀ − w·uᵀ with p = τ·A₂₂·u, w = p − (τ·pᵀu/2)·u, on the lower triangle. The reduction runs in WebAssembly
+ * SIMD, as one call (symmetricTriangleSimd.ts), from n = SYMMETRIC_SIMD_FROM where the runtime has it, and in
+ * TypeScript (`reduce` with symmetricTriangle.ts) otherwise.
  */
 import { tridiagonalEigenvaluesRootFree } from './eighTridiagonal.ts';
 import { simdInstance, simdModule } from './simdModule.ts';
@@ -27,8 +29,8 @@ export const SYMMETRIC_SIMD_FROM = 8;
 /** Options of SymmetricEigenvalues (tests and benchmarks; the default picks the fastest route). */
 export interface SymmetricEigenvaluesOptions {
   /**
-   * The reduction's passes and column steps: in WebAssembly SIMD where available from n = SYMMETRIC_SIMD_FROM
-   * (default), wherever available and needed (true: n ≥ 3; tests), or in TypeScript (false).
+   * The reduction: in WebAssembly SIMD where available from n = SYMMETRIC_SIMD_FROM (default), wherever available
+   * and needed (true: n ≥ 3; tests), or in TypeScript (false).
    */
   simd?: boolean;
 }

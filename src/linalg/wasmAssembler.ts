@@ -156,7 +156,6 @@ export class Code {
   f64x2Add(): this { return this.simd(0xf0); }
   f64x2Sub(): this { return this.simd(0xf1); }
   f64x2Mul(): this { return this.simd(0xf2); }
-  f64x2Neg(): this { return this.simd(0xed); }
   /** Lanes (first[a], first[b] or second[a − 2], second[b − 2]): a, b in 0…3 index the two operands' lanes. */
   f64x2Shuffle(a: number, b: number): this {
     const bytes = (lane: number) => Array.from({ length: 8 }, (_, i) => 8 * lane + i);
