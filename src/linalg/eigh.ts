@@ -14,10 +14,11 @@
  * |e_k|², so no phases and no square roots per rotation are needed.
  */
 import { formUnitary, multiplyBasis } from './eighBackTransform.ts';
-import { SimdBackTransform, simdModule } from './eighBackTransformSimd.ts';
+import { SimdBackTransform } from './eighBackTransformSimd.ts';
 import { TridiagonalDivideConquer } from './eighDivide.ts';
 import { HermitianTridiagonaliser } from './eighHouseholder.ts';
 import { diagonaliseTridiagonal, tridiagonalEigenvaluesRootFree } from './eighTridiagonal.ts';
+import { simdModule } from './simdModule.ts';
 
 /**
  * From this order on, eigenvectors of the tridiagonal come from divide and conquer; below it QR with rotations
@@ -67,7 +68,7 @@ export class HermitianEigensolver {
       : null;
     const module = options.simd === false ? null : simdModule();
     this.simd = module === null || n < 2 ? null : new SimdBackTransform(n, module);
-    this.reduction = new HermitianTridiagonaliser(n);
+    this.reduction = new HermitianTridiagonaliser(n, { simd: options.simd });
     this.diag = new Float64Array(n);
     this.off = new Float64Array(n);
     this.phaseRe = new Float64Array(n);
@@ -109,9 +110,14 @@ export class HermitianEigensolver {
     return out;
   }
 
-  /** The route eigensystem takes (for tests and benchmarks). */
-  get route(): { tridiagonal: 'qr' | 'divide'; simd: boolean } {
-    return { tridiagonal: this.divider === null ? 'qr' : 'divide', simd: this.simd !== null };
+  /**
+   * The route eigensystem takes (for tests and benchmarks): `simd` for the back-transformation, `reductionSimd`
+   * for the Householder passes (eigenvalues and eigensystem).
+   */
+  get route(): { tridiagonal: 'qr' | 'divide'; simd: boolean; reductionSimd: boolean } {
+    return {
+      tridiagonal: this.divider === null ? 'qr' : 'divide', simd: this.simd !== null, reductionSimd: this.reduction.simd,
+    };
   }
 
   /** Ascending eigenvalues and orthonormal eigenvectors: column m is eigenvector m, component r at vecRe[r*n + m] + i·vecIm[r*n + m]. */

@@ -13,8 +13,7 @@
  * Memory (bytes, f64 little-endian): X at 0, rows of 16n (an even count: a spare row when n is odd); then the
  * reflectors U (row k = u_k, entries k+1…n−1, 16 bytes each), their swapped copy S, and τ (8 bytes each).
  */
-import { multiplyRowsFunction } from './eighDivideSimd.ts';
-import { Code, assembleModule } from './wasmAssembler.ts';
+import { Code, type WasmFunction } from './wasmAssembler.ts';
 
 // Locals of applyReflectors: parameters, then i32, then v128, then f64.
 const X = 0, U = 1, S = 2, TAU = 3, N = 4;
@@ -117,29 +116,17 @@ function applyReflectorsBody(): number[] {
   return c.bytes;
 }
 
-let compiled: WebAssembly.Module | null | undefined;
-
-/** The compiled kernels (applyReflectors here, multiplyRows of eighDivideSimd.ts), or null where WebAssembly SIMD is not available (the caller then uses TypeScript). */
-export function simdModule(): WebAssembly.Module | null {
-  if (compiled !== undefined) return compiled;
-  compiled = null;
-  try {
-    if (typeof WebAssembly === 'object') {
-      const bytes = assembleModule([{
-        name: 'applyReflectors',
-        params: ['i32', 'i32', 'i32', 'i32', 'i32'],
-        locals: [
-          ...new Array<'i32'>(ROW_BYTES - K + 1).fill('i32'), ...new Array<'v128'>(SV - A0 + 1).fill('v128'),
-          ...new Array<'f64'>(TK - TR + 1).fill('f64'),
-        ],
-        body: applyReflectorsBody(),
-      }, multiplyRowsFunction()]);
-      if (WebAssembly.validate(bytes)) compiled = new WebAssembly.Module(bytes);
-    }
-  } catch {
-    compiled = null;
-  }
-  return compiled;
+/** The kernel `applyReflectors(x, u, s, tau, n)` (byte addresses), applied to two eigenvectors from x on. */
+export function applyReflectorsFunction(): WasmFunction {
+  return {
+    name: 'applyReflectors',
+    params: ['i32', 'i32', 'i32', 'i32', 'i32'],
+    locals: [
+      ...new Array<'i32'>(ROW_BYTES - K + 1).fill('i32'), ...new Array<'v128'>(SV - A0 + 1).fill('v128'),
+      ...new Array<'f64'>(TK - TR + 1).fill('f64'),
+    ],
+    body: applyReflectorsBody(),
+  };
 }
 
 /** The SIMD back-transformation for one order n, with its own memory (allocated once). */

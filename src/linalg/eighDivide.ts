@@ -17,7 +17,7 @@
  * both after a deflating rotation, from Q₂ only — the column types of LAPACK's dlaed2, described in Gu &
  * Eisenstat §5).
  */
-import { simdModule } from './eighBackTransformSimd.ts';
+import { simdModule } from './simdModule.ts';
 import { secularRoot } from './eighSecular.ts';
 import { diagonaliseTridiagonal } from './eighTridiagonal.ts';
 

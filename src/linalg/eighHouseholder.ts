@@ -12,10 +12,23 @@
  *
  * Each step applies A₂₂ ← P·A₂₂·P = A₂₂ − u·wᴴ − w·uᴴ with p = τ·A₂₂·u, w = p − (τ·uᴴp/2)·u, on the lower
  * triangle only. The rank-2 update of step k and the product A₂₂·u_{k+1} of step k+1 share one pass over the
- * triangle (column k+1 is updated first, so u_{k+1} is known before the pass; eighTriangle.ts).
+ * triangle (column k+1 is updated first, so u_{k+1} is known before the pass; eighTriangle.ts). The passes and the
+ * O(n) column step before each reflector (w, column k+1's update, its copy) run in WebAssembly SIMD where the runtime
+ * has it (eighTriangleSimd.ts; `work`, `lanes` and reflRe/reflIm then live in its memory), in TypeScript otherwise;
+ * the reflector's scalars and the rescaling of tiny columns are TypeScript on either route.
  */
 
 import { productOnly, updateAndProduct, updateOnly } from './eighTriangle.ts';
+import { simdInstance, simdModule } from './simdModule.ts';
+
+/** The kernels of one route: the three passes over rows/columns start…n−1 (eighTriangle.ts) and the column step. */
+interface StepKernels {
+  productOnly(start: number): void;
+  updateOnly(start: number): void;
+  updateAndProduct(start: number): void;
+  /** See HermitianTridiagonaliser.column; returns Σ_{r ≥ k+2} |x_r|². */
+  column(k: number, updating: boolean): number;
+}
 
 /** Below this, a sum of squares may have lost precision to underflow (2^−1022/ε ≈ 2^−970); rescale first. */
 const SQUARES_UNSAFE = 2 ** -900;
@@ -29,7 +42,7 @@ const SCALE_FREE_HIGH = 2 ** 100;
 export class HermitianTridiagonaliser {
   /** Matrix order. */
   readonly n: number;
-  /** Reflector u_k in row k, entries k+1…n−1. */
+  /** Reflector u_k in row k, entries k+1…n−1 (the row is not used where τ_k = 0). */
   readonly reflRe: Float64Array;
   readonly reflIm: Float64Array;
   /** τ_k of each reflector; 0 where the column needed no reflection. */
@@ -39,19 +52,69 @@ export class HermitianTridiagonaliser {
   /** Complex sub-diagonal T[k+1][k], k = 0…n−2. */
   readonly subRe: Float64Array;
   readonly subIm: Float64Array;
+  /** True when the passes run in WebAssembly SIMD. */
+  readonly simd: boolean;
   private readonly work: Float64Array;
   private readonly lanes: Float64Array;
+  private readonly kernels: StepKernels;
 
-  constructor(n: number) {
+  /**
+   * Options: `simd` (default true) runs the passes and the column steps in WebAssembly SIMD where available and
+   * needed (n ≥ 3: smaller orders have no pass); false forces TypeScript.
+   */
+  constructor(n: number, options: { simd?: boolean } = {}) {
     this.n = n;
-    this.reflRe = new Float64Array(n * n);
-    this.reflIm = new Float64Array(n * n);
     this.tau = new Float64Array(n);
     this.diag = new Float64Array(n);
     this.subRe = new Float64Array(n);
     this.subIm = new Float64Array(n);
-    this.work = new Float64Array(2 * n * n);
-    this.lanes = new Float64Array(8 * n);
+    const module = options.simd === false || n < 3 ? null : simdModule();
+    this.simd = module !== null;
+    if (module !== null) {
+      // Bytes: work (16n²), lanes (64n), swaps (32n), reflRe and reflIm (8n² each), the tail (8).
+      const lanesAt = 16 * n * n;
+      const swapsAt = lanesAt + 64 * n;
+      const reflReAt = swapsAt + 32 * n;
+      const reflImAt = reflReAt + 8 * n * n;
+      const tailAt = reflImAt + 8 * n * n;
+      const { memory, exports } = simdInstance(module, tailAt + 8);
+      this.work = new Float64Array(memory.buffer, 0, 2 * n * n);
+      this.lanes = new Float64Array(memory.buffer, lanesAt, 8 * n);
+      this.reflRe = new Float64Array(memory.buffer, reflReAt, n * n);
+      this.reflIm = new Float64Array(memory.buffer, reflImAt, n * n);
+      const tail = new Float64Array(memory.buffer, tailAt, 1);
+      const pass = (name: string) => {
+        const run = exports[name] as (work: number, lanes: number, swaps: number, n: number, start: number) => void;
+        return (start: number) => run(0, lanesAt, swapsAt, n, start);
+      };
+      const column = exports.hermitianColumn as (
+        work: number, lanes: number, reflRe: number, reflIm: number, tailAt: number, n: number, k: number,
+        tau: number, updating: number,
+      ) => void;
+      const tau = this.tau;
+      this.kernels = {
+        productOnly: pass('hermitianProduct'),
+        updateOnly: pass('hermitianUpdate'),
+        updateAndProduct: pass('hermitianUpdateProduct'),
+        column: (k, updating) => {
+          column(0, lanesAt, reflReAt, reflImAt, tailAt, n, k, updating ? tau[k - 1] : 0, updating ? 1 : 0);
+          return tail[0];
+        },
+      };
+    } else {
+      const work = new Float64Array(2 * n * n);
+      const lanes = new Float64Array(8 * n);
+      this.work = work;
+      this.lanes = lanes;
+      this.reflRe = new Float64Array(n * n);
+      this.reflIm = new Float64Array(n * n);
+      this.kernels = {
+        productOnly: (start) => productOnly(n, work, lanes, start),
+        updateOnly: (start) => updateOnly(n, work, lanes, start),
+        updateAndProduct: (start) => updateAndProduct(n, work, lanes, start),
+        column: (k, updating) => this.column(k, updating),
+      };
+    }
   }
 
   /**
@@ -67,20 +130,15 @@ export class HermitianTridiagonaliser {
     const tau = this.tau;
     this.diag[0] = work[0];
     if (n === 1) return scale;
-    if (this.reflector(0)) productOnly(n, this.work, this.lanes, 1);
+    const kernels = this.kernels;
+    if (this.reflector(0, false)) kernels.productOnly(1);
     for (let k = 0; k + 1 < n; k++) {
       const first = k + 1;
       const updating = tau[k] !== 0;
-      if (updating) {
-        this.promote(first);
-        this.toRankTwoVector(k);
-        this.updateColumn(k);
-      }
-      this.diag[first] = work[2 * (first * n + first)];
-      const producing = first + 1 < n && this.reflector(first);
-      if (updating && producing) updateAndProduct(n, work, this.lanes, k + 2);
-      else if (updating) updateOnly(n, work, this.lanes, k + 2);
-      else if (producing) productOnly(n, work, this.lanes, first + 1);
+      const producing = this.reflector(first, updating);
+      if (updating && producing) kernels.updateAndProduct(k + 2);
+      else if (updating) kernels.updateOnly(k + 2);
+      else if (producing) kernels.productOnly(first + 1);
     }
     return scale;
   }
@@ -123,44 +181,43 @@ export class HermitianTridiagonaliser {
   }
 
   /**
-   * Reflector k from column k (rows k+1…n−1) of the updated working copy: P·x = −phase(x₀)·‖x‖·e₁ with
-   * u = x + phase(x₀)·‖x‖·e₁ (no cancellation) and τ = 2/(uᴴu) = 1/(‖x‖·(‖x‖ + |x₀|)).
-   * Writes u into row k of reflRe/reflIm and into the v lanes. Returns false (τ = 0, T[k+1][k] = x₀)
-   * when x is already a multiple of e₁.
+   * Reflector k from column k (rows k+1…n−1) once the column step has run (see `column`): P·x = −phase(x₀)·‖x‖·e₁
+   * with u = x + phase(x₀)·‖x‖·e₁ (no cancellation) and τ = 2/(uᴴu) = 1/(‖x‖·(‖x‖ + |x₀|)). Leaves u in row k of
+   * reflRe/reflIm and in the v lanes; reads T[k][k]. Returns false (τ = 0, T[k+1][k] = x₀) when x is already a
+   * multiple of e₁, or when k is the last index.
    */
-  private reflector(k: number): boolean {
+  private reflector(k: number, updating: boolean): boolean {
     const n = this.n;
-    const work = this.work;
     const first = k + 1;
-    let alphaRe = work[2 * (first * n + k)];
-    let alphaIm = work[2 * (first * n + k) + 1];
-    let tail = 0;
-    for (let r = first + 1; r < n; r++) {
-      const a = work[2 * (r * n + k)];
-      const b = work[2 * (r * n + k) + 1];
-      tail += a * a + b * b;
-    }
+    let tail = this.kernels.column(k, updating);
+    this.diag[k] = this.work[2 * (k * n + k)];
+    if (first >= n) return false;
+    const lanes = this.lanes;
+    const uRe = this.reflRe;
+    const uIm = this.reflIm;
+    const uRow = k * n;
+    let alphaRe = uRe[uRow + first];
+    let alphaIm = uIm[uRow + first];
     // u and τ may be computed from x/s for any s > 0 (P is unchanged); s is a power of two (exact), ≠ 1 only
     // for tiny columns whose squares lose precision.
     let s = 1;
-    let inverse = 1;
     if (tail + alphaRe * alphaRe + alphaIm * alphaIm < SQUARES_UNSAFE) {
       let largest = 0;
-      for (let r = first; r < n; r++) {
-        largest = Math.max(largest, Math.abs(work[2 * (r * n + k)]), Math.abs(work[2 * (r * n + k) + 1]));
-      }
-      if (largest > 0) {
-        s = 2 ** Math.max(-1000, Math.round(Math.log2(largest)));
-        inverse = 1 / s;
-      }
-      alphaRe *= inverse;
-      alphaIm *= inverse;
+      for (let r = first; r < n; r++) largest = Math.max(largest, Math.abs(uRe[uRow + r]), Math.abs(uIm[uRow + r]));
+      if (largest > 0) s = 2 ** Math.max(-1000, Math.round(Math.log2(largest)));
+      const inverse = 1 / s;
       tail = 0;
-      for (let r = first + 1; r < n; r++) {
-        const a = work[2 * (r * n + k)] * inverse;
-        const b = work[2 * (r * n + k) + 1] * inverse;
-        tail += a * a + b * b;
+      for (let r = first; r < n; r++) {
+        const a = uRe[uRow + r] * inverse;
+        const b = uIm[uRow + r] * inverse;
+        uRe[uRow + r] = a;
+        uIm[uRow + r] = b;
+        lanes[8 * r + 4] = a;
+        lanes[8 * r + 5] = b;
+        if (r > first) tail += a * a + b * b;
       }
+      alphaRe = uRe[uRow + first];
+      alphaIm = uIm[uRow + first];
     }
     if (tail === 0) {
       this.tau[k] = 0;
@@ -185,35 +242,58 @@ export class HermitianTridiagonaliser {
     this.tau[k] = 1 / (norm * (norm + absAlpha));
     this.subRe[k] = -phRe * norm * s;
     this.subIm[k] = -phIm * norm * s;
-    const uRe = this.reflRe;
-    const uIm = this.reflIm;
-    const lanes = this.lanes;
-    const uRow = k * n;
     uRe[uRow + first] = alphaRe + phRe * norm;
     uIm[uRow + first] = alphaIm + phIm * norm;
-    for (let r = first + 1; r < n; r++) {
-      uRe[uRow + r] = work[2 * (r * n + k)] * inverse;
-      uIm[uRow + r] = work[2 * (r * n + k) + 1] * inverse;
-    }
-    for (let r = first; r < n; r++) {
-      lanes[8 * r + 4] = uRe[uRow + r];
-      lanes[8 * r + 5] = uIm[uRow + r];
-    }
+    lanes[8 * first + 4] = uRe[uRow + first];
+    lanes[8 * first + 5] = uIm[uRow + first];
     return true;
   }
 
-  /** Starts a step at index `first`: the next reflector v becomes the current u, its product q becomes p (in w). */
-  private promote(first: number): void {
+  /**
+   * The O(n) work before reflector k (the TypeScript route; eighTriangleSimd.ts has the SIMD one): when `updating`,
+   * w of step k−1 formed (toRankTwoVector) and its rank-2 update −u·wᴴ − w·uᴴ applied to column k (rows k…n−1),
+   * the column the reflector reads; then the column below the diagonal copied to row k of reflRe/reflIm and to the
+   * v lanes. Returns Σ_{r ≥ k+2} |x_r|².
+   */
+  private column(k: number, updating: boolean): number {
+    const n = this.n;
+    const work = this.work;
     const lanes = this.lanes;
-    for (let j = 8 * first, end = 8 * this.n; j < end; j += 8) {
-      lanes[j] = lanes[j + 4];
-      lanes[j + 1] = lanes[j + 5];
-      lanes[j + 2] = lanes[j + 6];
-      lanes[j + 3] = lanes[j + 7];
+    const uRe = this.reflRe;
+    const uIm = this.reflIm;
+    const uRow = k * n;
+    if (updating) {
+      this.toRankTwoVector(k - 1);
+      const ucRe = lanes[8 * k];
+      const ucIm = lanes[8 * k + 1];
+      const wcRe = lanes[8 * k + 2];
+      const wcIm = lanes[8 * k + 3];
+      for (let i = k, at = 2 * (k * n + k); i < n; i++, at += 2 * n) {
+        const uiRe = lanes[8 * i];
+        const uiIm = lanes[8 * i + 1];
+        const wiRe = lanes[8 * i + 2];
+        const wiIm = lanes[8 * i + 3];
+        work[at] -= uiRe * wcRe + uiIm * wcIm + wiRe * ucRe + wiIm * ucIm;
+        work[at + 1] -= uiIm * wcRe - uiRe * wcIm + wiIm * ucRe - wiRe * ucIm;
+      }
     }
+    let tail = 0;
+    for (let i = k + 1, at = 2 * ((k + 1) * n + k); i < n; i++, at += 2 * n) {
+      const x = work[at];
+      const y = work[at + 1];
+      uRe[uRow + i] = x;
+      uIm[uRow + i] = y;
+      lanes[8 * i + 4] = x;
+      lanes[8 * i + 5] = y;
+      if (i > k + 1) tail += x * x + y * y;
+    }
+    return tail;
   }
 
-  /** Turns p = A₂₂·u_k in the w lanes (indices k+1…n−1) into w = τp − (τ²·uᴴp/2)·u. */
+  /**
+   * Starts step k: the next reflector v (v lanes) becomes u, its product q = A₂₂·u becomes p, turned into
+   * w = τp − (τ²·uᴴp/2)·u in the w lanes (indices k+1…n−1).
+   */
   private toRankTwoVector(k: number): void {
     const lanes = this.lanes;
     const tau = this.tau[k];
@@ -221,37 +301,20 @@ export class HermitianTridiagonaliser {
     const end = 8 * this.n;
     let uhp = 0;
     for (let j = start; j < end; j += 8) {
-      const pRe = tau * lanes[j + 2];
-      const pIm = tau * lanes[j + 3];
+      const uRe = lanes[j + 4];
+      const uIm = lanes[j + 5];
+      const pRe = tau * lanes[j + 6];
+      const pIm = tau * lanes[j + 7];
+      lanes[j] = uRe;
+      lanes[j + 1] = uIm;
       lanes[j + 2] = pRe;
       lanes[j + 3] = pIm;
-      uhp += lanes[j] * pRe + lanes[j + 1] * pIm;
+      uhp += uRe * pRe + uIm * pIm;
     }
     const half = 0.5 * tau * uhp;
     for (let j = start; j < end; j += 8) {
       lanes[j + 2] -= half * lanes[j];
       lanes[j + 3] -= half * lanes[j + 1];
-    }
-  }
-
-  /** Applies −u·wᴴ − w·uᴴ of step k to column k+1 (rows k+1…n−1), the column the next reflector reads. */
-  private updateColumn(k: number): void {
-    const n = this.n;
-    const work = this.work;
-    const lanes = this.lanes;
-    const c = k + 1;
-    const ucRe = lanes[8 * c];
-    const ucIm = lanes[8 * c + 1];
-    const wcRe = lanes[8 * c + 2];
-    const wcIm = lanes[8 * c + 3];
-    for (let i = c; i < n; i++) {
-      const uiRe = lanes[8 * i];
-      const uiIm = lanes[8 * i + 1];
-      const wiRe = lanes[8 * i + 2];
-      const wiIm = lanes[8 * i + 3];
-      const at = 2 * (i * n + c);
-      work[at] -= uiRe * wcRe + uiIm * wcIm + wiRe * ucRe + wiIm * ucIm;
-      work[at + 1] -= uiIm * wcRe - uiRe * wcIm + wiIm * ucRe - wiRe * ucIm;
     }
   }
 }

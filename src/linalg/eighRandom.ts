@@ -1,6 +1,7 @@
 /**
  * Seeded random dense complex Hermitian matrices for benchmarks and tests (split storage, row-major:
- * element (r, c) is re[r*n + c] + i·im[r*n + c]). Entries are uniform in [−1, 1); the diagonal is real.
+ * element (r, c) is re[r*n + c] + i·im[r*n + c]), and real symmetric ones (row-major). Entries are uniform in
+ * [−1, 1); the diagonal is real.
  */
 
 /** xorshift32 generator (Marsaglia, "Xorshift RNGs", J. Stat. Softw. 8(14), 2003) giving uniforms in [0, 1). */
@@ -28,6 +29,17 @@ export function fillRandomHermitian(n: number, uniform: () => number, re: Float6
       re[c * n + r] = a;
       im[r * n + c] = b;
       im[c * n + r] = -b;
+    }
+  }
+}
+
+/** Fills a (length ≥ n²) with a random real symmetric matrix drawn from `uniform`. */
+export function fillRandomSymmetric(n: number, uniform: () => number, a: Float64Array): void {
+  for (let r = 0; r < n; r++) {
+    for (let c = 0; c <= r; c++) {
+      const x = 2 * uniform() - 1;
+      a[r * n + c] = x;
+      a[c * n + r] = x;
     }
   }
 }

@@ -7,13 +7,32 @@
  *
  * Layout: n×n row-major; only the lower triangle (c ≤ r) is read, the input is untouched.
  * Each step k applies the reflector P = I − τ·u·uᵀ on indices k+1…n−1 to the trailing block, A₂₂ ← P·A₂₂·P =
- * A₂₂ − u·wᵀ − w·uᵀ with p = τ·A₂₂·u, w = p − (τ·pᵀu/2)·u, on the lower triangle.
+ * A₂₂ − u·wᵀ − w·uᵀ with p = τ·A₂₂·u, w = p − (τ·pᵀu/2)·u, on the lower triangle. The reduction runs in WebAssembly
+ * SIMD, as one call (symmetricTriangleSimd.ts), from n = SYMMETRIC_SIMD_FROM where the runtime has it, and in
+ * TypeScript (`reduce` with symmetricTriangle.ts) otherwise.
  */
 import { tridiagonalEigenvaluesRootFree } from './eighTridiagonal.ts';
+import { simdInstance, simdModule } from './simdModule.ts';
+import { product, updateAndProduct } from './symmetricTriangle.ts';
 
 /** The largest entry is brought into [2^−1, 1) by a power of two, so squares neither overflow nor underflow. */
 function powerOfTwoBelow(x: number): number {
   return 2 ** Math.ceil(Math.log2(x));
+}
+
+/**
+ * Below this order the default route is TypeScript: the two routes take the same time there (measured at n = 4–6;
+ * at n = 3 TypeScript is faster), and TypeScript needs no WebAssembly memory (64 KiB a solver, however small n).
+ */
+export const SYMMETRIC_SIMD_FROM = 8;
+
+/** Options of SymmetricEigenvalues (tests and benchmarks; the default picks the fastest route). */
+export interface SymmetricEigenvaluesOptions {
+  /**
+   * The reduction: in WebAssembly SIMD where available from n = SYMMETRIC_SIMD_FROM (default), wherever available
+   * and needed (true: n ≥ 3; tests), or in TypeScript (false).
+   */
+  simd?: boolean;
 }
 
 /**
@@ -23,6 +42,8 @@ function powerOfTwoBelow(x: number): number {
  */
 export class SymmetricEigenvalues {
   readonly n: number;
+  /** True when the reduction runs in WebAssembly SIMD (symmetricTriangleSimd.ts), false for TypeScript. */
+  readonly simd: boolean;
   private readonly work: Float64Array;
   // Reflectors of the current and the next step (swapped each step), the rank-2 vector w, the product q = A₂₂·v.
   private readonly u: Float64Array;
@@ -31,16 +52,34 @@ export class SymmetricEigenvalues {
   private readonly q: Float64Array;
   private readonly diag: Float64Array;
   private readonly offSquared: Float64Array;
+  /** The whole reduction in one WebAssembly call (symmetricReduce), or null on the TypeScript route. */
+  private readonly reduceSimd: (() => void) | null;
 
-  constructor(n: number) {
+  constructor(n: number, options: SymmetricEigenvaluesOptions = {}) {
     this.n = n;
-    this.work = new Float64Array(n * n);
-    this.u = new Float64Array(n);
-    this.v = new Float64Array(n);
-    this.w = new Float64Array(n);
-    this.q = new Float64Array(n);
-    this.diag = new Float64Array(n);
-    this.offSquared = new Float64Array(n);
+    const wanted = options.simd ?? n >= SYMMETRIC_SIMD_FROM;
+    const module = !wanted || n < 3 ? null : simdModule();
+    this.simd = module !== null;
+    if (module !== null) {
+      // In the kernels' memory (f64 units): work (n²), then u, v, w, q, diag, offSquared (n each), ‖x‖² (1).
+      const { memory, exports } = simdInstance(module, 8 * (n * n + 6 * n + 1));
+      const view = (at: number, length: number) => new Float64Array(memory.buffer, 8 * at, length);
+      const at = (i: number) => n * n + i * n;
+      this.work = view(0, n * n);
+      [this.u, this.v, this.w, this.q, this.diag, this.offSquared] = [0, 1, 2, 3, 4, 5].map((i) => view(at(i), n));
+      const run = exports.symmetricReduce as (...addresses: number[]) => void;
+      const bytes = [0, 1, 2, 3, 4, 5, 6].map((i) => 8 * at(i));
+      this.reduceSimd = () => run(0, ...bytes, n);
+    } else {
+      this.work = new Float64Array(n * n);
+      this.u = new Float64Array(n);
+      this.v = new Float64Array(n);
+      this.w = new Float64Array(n);
+      this.q = new Float64Array(n);
+      this.diag = new Float64Array(n);
+      this.offSquared = new Float64Array(n);
+      this.reduceSimd = null;
+    }
   }
 
   /** Ascending eigenvalues of `matrix` into out (length ≥ n); returns out. */
@@ -58,8 +97,12 @@ export class SymmetricEigenvalues {
     const scale = largest > 0 ? powerOfTwoBelow(largest) : 1;
     const work = this.work;
     const inverse = 1 / scale;
-    for (let i = 0; i < n * n; i++) work[i] = matrix[i] * inverse;
-    this.reduce();
+    for (let r = 0; r < n; r++) {
+      for (let i = r * n, end = i + r + 1; i < end; i++) work[i] = matrix[i] * inverse;
+    }
+    if (this.reduceSimd !== null) this.reduceSimd();
+    else this.reduce();
+    this.lastEntries();
     const diag = this.diag;
     if (!tridiagonalEigenvaluesRootFree(diag, this.offSquared, n)) return out.fill(NaN, 0, n);
     // Insertion sort: n is small and deflated blocks come out partly ordered.
@@ -76,38 +119,33 @@ export class SymmetricEigenvalues {
   }
 
   /**
-   * Tridiagonalises `work` (lower triangle) in place: diag and offSquared (T[k+1][k]², last entry 0).
+   * Tridiagonalises `work` (lower triangle) in place, the TypeScript route (symmetricReduce of
+   * symmetricTriangleSimd.ts is the same, step for step): diag and offSquared up to n−3 (lastEntries does the rest).
    * The rank-2 update of step k and the product A₂₂·v of step k+1 share one pass over the triangle (column k+1
    * is updated first, so the next reflector v is known before the pass): typed-array accesses, not flops,
    * bound these loops in V8, so one pass instead of two is what pays.
    */
   private reduce(): void {
-    const { n, work, diag, offSquared } = this;
+    const { n, work, diag, w, q } = this;
     let u = this.u;
     let v = this.v;
-    const w = this.w;
-    const q = this.q;
-    let tau = n >= 3 ? this.reflector(0, u) : 0;
+    let tau = n >= 3 ? this.reflector(0, this.column(0, 0, u, u), u) : 0;
     if (tau !== 0) product(n, work, u, q, 1);
     for (let k = 0; k + 2 < n; k++) {
       diag[k] = work[k * n + k];
       const start = k + 1;
-      if (tau !== 0) {
-        // w = τ·q − (τ²·qᵀu/2)·u, then column `start` of A₂₂ updated ahead of the pass.
-        let qu = 0;
-        for (let i = start; i < n; i++) qu += q[i] * u[i];
-        const half = 0.5 * tau * tau * qu;
-        for (let i = start; i < n; i++) w[i] = tau * q[i] - half * u[i];
-        const us = u[start];
-        const ws = w[start];
-        for (let i = start; i < n; i++) work[i * n + start] -= u[i] * ws + w[i] * us;
-      }
-      const nextTau = k + 3 < n ? this.reflector(start, v) : 0;
+      const norm2 = this.column(start, tau, u, v);
+      const nextTau = k + 3 < n ? this.reflector(start, norm2, v) : 0;
       if (tau !== 0) updateAndProduct(n, work, u, w, v, q, start + 1, nextTau !== 0);
       else if (nextTau !== 0) product(n, work, v, q, start + 1);
       [u, v] = [v, u];
       tau = nextTau;
     }
+  }
+
+  /** The last 2×2 of T, which no reflector touches: diag[n−2], diag[n−1], offSquared[n−2] (offSquared[n−1] = 0). */
+  private lastEntries(): void {
+    const { n, work, diag, offSquared } = this;
     if (n >= 2) {
       diag[n - 2] = work[(n - 2) * n + n - 2];
       const last = work[(n - 1) * n + n - 2];
@@ -118,102 +156,43 @@ export class SymmetricEigenvalues {
   }
 
   /**
-   * The reflector of column `col` (rows col+1…n−1) into `out`: v = x − β·e₁, β = −sign(x₀)·‖x‖ (no cancellation
-   * in v₀), vᵀv = 2α(α + |x₀|) so τ = 1/(α(α + |x₀|)). Sets offSquared[col] = β². Returns τ, or 0 when the column
-   * is already reduced (nothing below its first sub-diagonal entry).
+   * The O(n) work before the reflector of column `start` (the TypeScript route; symmetricTriangleSimd.ts has the
+   * SIMD one). When τ of the current reflector u is not 0: w = τ·q − (τ²·qᵀu/2)·u, and column `start` (rows
+   * start…n−1) gets its rank-2 update ahead of the pass. Then the column below the diagonal is copied into `out`;
+   * returns its ‖x‖².
    */
-  private reflector(col: number, out: Float64Array): number {
-    const { n, work } = this;
+  private column(start: number, tau: number, u: Float64Array, out: Float64Array): number {
+    const { n, work, w, q } = this;
+    if (tau !== 0) {
+      let qu = 0;
+      for (let i = start; i < n; i++) qu += q[i] * u[i];
+      const half = 0.5 * tau * tau * qu;
+      for (let i = start; i < n; i++) w[i] = tau * q[i] - half * u[i];
+      const us = u[start];
+      const ws = w[start];
+      for (let i = start; i < n; i++) work[i * n + start] -= u[i] * ws + w[i] * us;
+    }
     let norm2 = 0;
-    for (let i = col + 1; i < n; i++) {
-      const x = work[i * n + col];
+    for (let i = start + 1; i < n; i++) {
+      const x = work[i * n + start];
       norm2 += x * x;
       out[i] = x;
     }
+    return norm2;
+  }
+
+  /**
+   * The reflector of column `col` (rows col+1…n−1, copied into `out` with ‖x‖² = norm2 by the column step):
+   * v = x − β·e₁, β = −sign(x₀)·‖x‖ (no cancellation in v₀), vᵀv = 2α(α + |x₀|) so τ = 1/(α(α + |x₀|)). Sets
+   * offSquared[col] = β². Returns τ, or 0 when the column is already reduced (nothing below its first
+   * sub-diagonal entry).
+   */
+  private reflector(col: number, norm2: number, out: Float64Array): number {
     const x0 = out[col + 1];
     this.offSquared[col] = norm2;
     if (norm2 === x0 * x0) return 0;
     const alpha = Math.sqrt(norm2);
     out[col + 1] = x0 >= 0 ? x0 + alpha : x0 - alpha;
     return 1 / (alpha * (alpha + Math.abs(x0)));
-  }
-}
-
-/** q = A·v over indices from…n−1, from the lower triangle: row i gives q_i += A_ij·v_j and q_j += A_ij·v_i (j < i). */
-function product(n: number, work: Float64Array, v: Float64Array, q: Float64Array, from: number): void {
-  q.fill(0, from, n);
-  for (let i = from; i < n; i++) {
-    const row = i * n;
-    const vi = v[i];
-    let sum = 0;
-    for (let j = from; j < i; j++) {
-      const a = work[row + j];
-      sum += a * v[j];
-      q[j] += a * vi;
-    }
-    q[i] += sum + work[row + i] * vi;
-  }
-}
-
-/**
- * A ← A − u·wᵀ − w·uᵀ over indices from…n−1 (lower triangle), and, when `withProduct`, q = A·v on the updated
- * entries in the same pass.
- */
-function updateAndProduct(
-  n: number, work: Float64Array, u: Float64Array, w: Float64Array, v: Float64Array, q: Float64Array,
-  from: number, withProduct: boolean,
-): void {
-  if (!withProduct) {
-    for (let i = from; i < n; i++) {
-      const row = i * n;
-      const ui = u[i];
-      const wi = w[i];
-      for (let j = from; j <= i; j++) work[row + j] -= ui * w[j] + wi * u[j];
-    }
-    return;
-  }
-  q.fill(0, from, n);
-  let i = from;
-  // Rows in pairs: each load of u_j, w_j, v_j and each update of q_j serves two matrix entries.
-  for (; i + 1 < n; i += 2) {
-    const row0 = i * n;
-    const row1 = row0 + n;
-    const u0 = u[i], w0 = w[i], v0 = v[i];
-    const u1 = u[i + 1], w1 = w[i + 1], v1 = v[i + 1];
-    let sum0 = 0;
-    let sum1 = 0;
-    for (let j = from; j < i; j++) {
-      const uj = u[j], wj = w[j], vj = v[j];
-      const a0 = work[row0 + j] - (u0 * wj + w0 * uj);
-      const a1 = work[row1 + j] - (u1 * wj + w1 * uj);
-      work[row0 + j] = a0;
-      work[row1 + j] = a1;
-      sum0 += a0 * vj;
-      sum1 += a1 * vj;
-      q[j] += a0 * v0 + a1 * v1;
-    }
-    // The 2×2 corner: (i, i), (i+1, i), (i+1, i+1).
-    const d0 = work[row0 + i] - 2 * u0 * w0;
-    const c = work[row1 + i] - (u1 * w0 + w1 * u0);
-    const d1 = work[row1 + i + 1] - 2 * u1 * w1;
-    work[row0 + i] = d0;
-    work[row1 + i] = c;
-    work[row1 + i + 1] = d1;
-    q[i] += sum0 + d0 * v0 + c * v1;
-    q[i + 1] += sum1 + c * v0 + d1 * v1;
-  }
-  if (i < n) {
-    const row = i * n;
-    const ui = u[i], wi = w[i], vi = v[i];
-    let sum = 0;
-    for (let j = from; j < i; j++) {
-      const a = work[row + j] - (ui * w[j] + wi * u[j]);
-      work[row + j] = a;
-      sum += a * v[j];
-      q[j] += a * vi;
-    }
-    const d = work[row + i] - 2 * ui * wi;
-    work[row + i] = d;
-    q[i] += sum + d * vi;
   }
 }

@@ -10,12 +10,15 @@
 export type ValueType = 'i32' | 'f64' | 'v128';
 const TYPE_CODE: Record<ValueType, number> = { i32: 0x7f, f64: 0x7c, v128: 0x7b };
 
-/** One function: parameter and local types by name, and its body as bytes (see `Code`). */
+/**
+ * One function: parameter and local types by name, and its body as bytes (see `Code`) — or as a function of
+ * `indexOf`, which gives the index of another function of the module by name (for `Code.call`).
+ */
 export interface WasmFunction {
   name: string;
   params: ValueType[];
   locals: ValueType[];
-  body: number[];
+  body: number[] | ((indexOf: (name: string) => number) => number[]);
 }
 
 function unsigned(value: number, out: number[]): void {
@@ -55,6 +58,23 @@ function section(id: number, contents: number[], out: number[]): void {
   out.push(id);
   unsigned(contents.length, out);
   out.push(...contents);
+}
+
+/**
+ * Numbers a function's locals as the binary format does: parameters first, then declared locals (each declared
+ * alone, so types may come in any order).
+ */
+export class Locals {
+  readonly params: ValueType[] = [];
+  readonly locals: ValueType[] = [];
+  param(type: ValueType): number {
+    this.params.push(type);
+    return this.params.length - 1;
+  }
+  local(type: ValueType): number {
+    this.locals.push(type);
+    return this.params.length + this.locals.length - 1;
+  }
 }
 
 /**
@@ -101,6 +121,10 @@ export class Code {
   /** loop … end; `br` depth 0 inside jumps back to its start. */
   loop(inner: (code: this) => void): this { this.op(0x03, 0x40); inner(this); return this.op(0x0b); }
   brIf(depth: number): this { this.bytes.push(0x0d); unsigned(depth, this.bytes); return this; }
+  /** Calls function `index` of the module (its parameters taken from the stack). */
+  call(index: number): this { this.bytes.push(0x10); unsigned(index, this.bytes); return this; }
+  /** The first or the second of two values by an i32 condition (≠ 0: the first). */
+  select(): this { return this.op(0x1b); }
   br(depth: number): this { this.bytes.push(0x0c); unsigned(depth, this.bytes); return this; }
 
   i32Add(): this { return this.op(0x6a); }
@@ -109,6 +133,8 @@ export class Code {
   i32GeS(): this { return this.op(0x4e); }
   i32LtS(): this { return this.op(0x48); }
   i32Eqz(): this { return this.op(0x45); }
+  i32Eq(): this { return this.op(0x46); }
+  i32Shl(): this { return this.op(0x74); }
 
   f64Load(offset = 0): this { return this.memory(0x2b, 3, offset); }
   f64Store(offset = 0): this { return this.memory(0x39, 3, offset); }
@@ -116,6 +142,11 @@ export class Code {
   f64Sub(): this { return this.op(0xa1); }
   f64Mul(): this { return this.op(0xa2); }
   f64Neg(): this { return this.op(0x9a); }
+  f64Eq(): this { return this.op(0x61); }
+  f64Ge(): this { return this.op(0x66); }
+  f64Abs(): this { return this.op(0x99); }
+  f64Sqrt(): this { return this.op(0x9f); }
+  f64Div(): this { return this.op(0xa3); }
 
   v128Load(offset = 0): this { return this.memory(0x00, 3, offset, true); }
   v128Store(offset = 0): this { return this.memory(0x0b, 3, offset, true); }
@@ -125,15 +156,23 @@ export class Code {
   f64x2Add(): this { return this.simd(0xf0); }
   f64x2Sub(): this { return this.simd(0xf1); }
   f64x2Mul(): this { return this.simd(0xf2); }
-  /** The two f64 lanes swapped: (a, b) → (b, a). */
-  f64x2Swap(): this {
-    return this.simd(0x0d, 8, 9, 10, 11, 12, 13, 14, 15, 0, 1, 2, 3, 4, 5, 6, 7);
+  /** Lanes (first[a], first[b] or second[a − 2], second[b − 2]): a, b in 0…3 index the two operands' lanes. */
+  f64x2Shuffle(a: number, b: number): this {
+    const bytes = (lane: number) => Array.from({ length: 8 }, (_, i) => 8 * lane + i);
+    return this.simd(0x0d, ...bytes(a), ...bytes(b));
   }
+  /** The lanes of the vector in `local` swapped: (a, b) → (b, a) (a shuffle of the vector with itself). */
+  f64x2Swapped(local: number): this { return this.get(local).get(local).f64x2Shuffle(1, 0); }
   dup(local: number): this { return this.tee(local).get(local); }
 }
 
 /** The bytes of a module importing env.memory and exporting `functions` (each returns nothing). */
 export function assembleModule(functions: WasmFunction[]): Uint8Array<ArrayBuffer> {
+  const indexOf = (name: string): number => {
+    const index = functions.findIndex((f) => f.name === name);
+    if (index < 0) throw new Error(`no function ${name} in the module`);
+    return index;
+  };
   const out = [0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00];
   section(1, (() => {
     const types = functions.map((f) => {
@@ -167,7 +206,7 @@ export function assembleModule(functions: WasmFunction[]): Uint8Array<ArrayBuffe
       const locals: number[][] = f.locals.map((t) => [0x01, TYPE_CODE[t]]);
       const code: number[] = [];
       vector(locals, code);
-      code.push(...f.body, 0x0b);
+      code.push(...(typeof f.body === 'function' ? f.body(indexOf) : f.body), 0x0b);
       const entry: number[] = [];
       unsigned(code.length, entry);
       return [...entry, ...code];

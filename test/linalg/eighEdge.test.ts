@@ -30,37 +30,39 @@ describe('HermitianEigensolver at extreme scales', () => {
     );
   });
 
-  it('random matrices scaled by 2^±1000 with entries shrunk by 2^−600 or zeroed: unitary V, small residual', () => {
-    fc.assert(
-      fc.property(
-        fc.integer({ min: 1, max: 20 }), fc.integer({ min: 1, max: 2 ** 31 }),
-        fc.integer({ min: -1000, max: 1000 }), fc.integer({ min: 0, max: 3 }),
-        (n, seed, exponent, sparsity) => {
-          const h = randomHermitian(n, seed, 2 ** exponent * 1.3);
-          for (let r = 0; r < n; r++) {
-            for (let c = 0; c < r; c++) {
-              if ((r * 7 + c * 3 + seed) % 4 >= sparsity) continue;
-              const f = (r + c) % 2 === 1 ? 0 : 2 ** -600;
-              for (const i of [r * n + c, c * n + r]) {
-                h.re[i] *= f;
-                h.im[i] *= f;
+  for (const simd of [true, false]) {
+    it(`random matrices scaled by 2^±1000 with entries shrunk by 2^−600 or zeroed: unitary V, small residual (${simd ? 'SIMD' : 'TypeScript'} kernels)`, () => {
+      fc.assert(
+        fc.property(
+          fc.integer({ min: 1, max: 20 }), fc.integer({ min: 1, max: 2 ** 31 }),
+          fc.integer({ min: -1000, max: 1000 }), fc.integer({ min: 0, max: 3 }),
+          (n, seed, exponent, sparsity) => {
+            const h = randomHermitian(n, seed, 2 ** exponent * 1.3);
+            for (let r = 0; r < n; r++) {
+              for (let c = 0; c < r; c++) {
+                if ((r * 7 + c * 3 + seed) % 4 >= sparsity) continue;
+                const f = (r + c) % 2 === 1 ? 0 : 2 ** -600;
+                for (const i of [r * n + c, c * n + r]) {
+                  h.re[i] *= f;
+                  h.im[i] *= f;
+                }
               }
             }
-          }
-          const solver = new HermitianEigensolver(n);
-          const values = new Float64Array(n);
-          const vecRe = new Float64Array(n * n);
-          const vecIm = new Float64Array(n * n);
-          solver.eigensystem(h.re, h.im, values, vecRe, vecIm);
-          const only = solver.eigenvalues(h.re, h.im, new Float64Array(n));
-          const size = frobenius(h);
-          expect(orthonormalityError(n, vecRe, vecIm)).toBeLessThanOrEqual(1e-13);
-          for (let m = 0; m < n; m++) expect(Math.abs(only[m] - values[m])).toBeLessThanOrEqual(1e-12 * size);
-          // The residual helper squares entries itself, so it is only meaningful away from the extremes.
-          if (Math.abs(exponent) < 400) expect(residual(h, values, vecRe, vecIm)).toBeLessThanOrEqual(1e-12 * size);
-        },
-      ),
-      { numRuns: RUNS_MIXED },
-    );
-  });
+            const solver = new HermitianEigensolver(n, { simd });
+            const values = new Float64Array(n);
+            const vecRe = new Float64Array(n * n);
+            const vecIm = new Float64Array(n * n);
+            solver.eigensystem(h.re, h.im, values, vecRe, vecIm);
+            const only = solver.eigenvalues(h.re, h.im, new Float64Array(n));
+            const size = frobenius(h);
+            expect(orthonormalityError(n, vecRe, vecIm)).toBeLessThanOrEqual(1e-13);
+            for (let m = 0; m < n; m++) expect(Math.abs(only[m] - values[m])).toBeLessThanOrEqual(1e-12 * size);
+            // The residual helper squares entries itself, so it is only meaningful away from the extremes.
+            if (Math.abs(exponent) < 400) expect(residual(h, values, vecRe, vecIm)).toBeLessThanOrEqual(1e-12 * size);
+          },
+        ),
+        { numRuns: RUNS_MIXED },
+      );
+    });
+  }
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fillRandomHermitian, xorshift32 } from '../../src/linalg/eighRandom.ts';
+import { fillRandomHermitian, fillRandomSymmetric, xorshift32 } from '../../src/linalg/eighRandom.ts';
 
 describe('xorshift32(seed)', () => {
   it('is deterministic per seed and stays in [0, 1)', () => {
@@ -45,5 +45,21 @@ describe('fillRandomHermitian(n, uniform, re, im)', () => {
         expect(Math.abs(re[r * n + c])).toBeLessThanOrEqual(1);
       }
     }
+  });
+});
+
+describe('fillRandomSymmetric(n, uniform, a)', () => {
+  it('fills an exactly symmetric matrix with entries in [−1, 1), not all equal', () => {
+    const n = 9;
+    const a = new Float64Array(n * n);
+    fillRandomSymmetric(n, xorshift32(5), a);
+    for (let r = 0; r < n; r++) {
+      for (let c = 0; c < n; c++) {
+        expect(a[r * n + c]).toBe(a[c * n + r]);
+        expect(a[r * n + c]).toBeGreaterThanOrEqual(-1);
+        expect(a[r * n + c]).toBeLessThan(1);
+      }
+    }
+    expect(new Set(a).size).toBe((n * (n + 1)) / 2);
   });
 });

@@ -7,7 +7,8 @@ import {
 } from './eighChecks.ts';
 
 // Every route eigensystem can take: QR or divide and conquer on the tridiagonal (with leaves of 1, 3 and the
-// default, so merges run from n = 2 on), each with the WebAssembly SIMD kernels and with TypeScript only.
+// default, so merges run from n = 2 on), each with the WebAssembly SIMD kernels (Householder passes and column
+// steps, back-transformation, merge product) and with TypeScript only.
 const ROUTES: EigensolverOptions[] = [
   { tridiagonal: 'qr', simd: true }, { tridiagonal: 'qr', simd: false },
   { tridiagonal: 'divide', simd: true, leafSize: 1 }, { tridiagonal: 'divide', simd: false, leafSize: 3 },
@@ -47,6 +48,16 @@ describe('HermitianEigensolver on every route', () => {
     expect(new HermitianEigensolver(24).route.tridiagonal).toBe('qr');
     expect(new HermitianEigensolver(128).route.tridiagonal).toBe('divide');
     expect(new HermitianEigensolver(64, { simd: false }).route.simd).toBe(false);
+  });
+
+  it('runs the SIMD reduction exactly where asked and needed (n ≥ 3), and the TypeScript one with simd: false', () => {
+    // Node ≥ 16.4 has WebAssembly SIMD (common practice): a false here would mean our module failed to validate
+    // and every "SIMD" route below silently ran TypeScript.
+    for (const n of [0, 1, 2, 3, 24, 64]) {
+      expect(new HermitianEigensolver(n).route.reductionSimd).toBe(n >= 3);
+      expect(new HermitianEigensolver(n, { simd: false }).route.reductionSimd).toBe(false);
+    }
+    expect(new HermitianEigensolver(24).route.simd).toBe(true);
   });
 
   for (const route of ROUTES) {
@@ -91,8 +102,13 @@ describe('HermitianEigensolver on every route', () => {
         for (let m = 0; m < 44; m++) expect(Math.abs(s.values[m] / scale - base.values[m])).toBeLessThanOrEqual(1e-12 * 44);
         expect(orthonormalityError(44, s.vecRe, s.vecIm)).toBeLessThanOrEqual(1e-12);
       }
-      // n = 1, 2.
-      for (const n of [1, 2]) expectInvariants(randomHermitian(n, 9), solve(randomHermitian(n, 9), route));
+      // n = 1, 2, 3 (3: the smallest order with a Householder pass); n = 0 does nothing and writes nothing.
+      for (const n of [1, 2, 3]) expectInvariants(randomHermitian(n, 9), solve(randomHermitian(n, 9), route));
+      const empty = new HermitianEigensolver(0, route);
+      const values = new Float64Array(1).fill(7);
+      empty.eigensystem(new Float64Array(0), new Float64Array(0), values, new Float64Array(1), new Float64Array(1));
+      expect(empty.eigenvalues(new Float64Array(0), new Float64Array(0), values)).toBe(values);
+      expect(values[0]).toBe(7);
     });
 
     it(`${name(route)}: complex tridiagonal Toeplitz with hopping t·e^{iθ}: a + 2|t|cos(kπ/(n+1)), gauged sine eigenvectors`, () => {

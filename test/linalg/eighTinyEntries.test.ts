@@ -93,51 +93,53 @@ function withoutTiny(h: ComplexMatrix): { cleaned: ComplexMatrix; removed: numbe
 }
 
 describe('HermitianEigensolver on ordinary entries mixed with tiny ones (1e-300…1e-150, subnormal)', () => {
-  it('eigenvalues() and eigensystem() match ml-matrix on the embedding and keep every invariant (property)', () => {
-    fc.assert(
-      fc.property(
-        fc.integer({ min: 2, max: 24 }), fc.integer({ min: 1, max: 2 ** 31 }),
-        fc.double({ min: 1, max: 10, noNaN: true }),
-        fc.record({ first: fc.integer({ min: 1, max: 40 }), factor: fc.double({ min: 1e-80, max: 1e-60, noNaN: true }) }),
-        fc.array(tinyEntry, { maxLength: 80 }),
-        (n, seed, scale, block, tiny) => {
-          const h = mixedMatrix(n, seed, scale, block, tiny);
-          const size = frobenius(h);
-          const solver = new HermitianEigensolver(n);
-          const only = solver.eigenvalues(h.re, h.im, new Float64Array(n));
-          const values = new Float64Array(n);
-          const vecRe = new Float64Array(n * n);
-          const vecIm = new Float64Array(n * n);
-          solver.eigensystem(h.re, h.im, values, vecRe, vecIm);
+  for (const simd of [true, false]) {
+    it(`eigenvalues() and eigensystem() match ml-matrix on the embedding and keep every invariant (property; ${simd ? 'SIMD' : 'TypeScript'} kernels)`, () => {
+      fc.assert(
+        fc.property(
+          fc.integer({ min: 2, max: 24 }), fc.integer({ min: 1, max: 2 ** 31 }),
+          fc.double({ min: 1, max: 10, noNaN: true }),
+          fc.record({ first: fc.integer({ min: 1, max: 40 }), factor: fc.double({ min: 1e-80, max: 1e-60, noNaN: true }) }),
+          fc.array(tinyEntry, { maxLength: 80 }),
+          (n, seed, scale, block, tiny) => {
+            const h = mixedMatrix(n, seed, scale, block, tiny);
+            const size = frobenius(h);
+            const solver = new HermitianEigensolver(n, { simd });
+            const only = solver.eigenvalues(h.re, h.im, new Float64Array(n));
+            const values = new Float64Array(n);
+            const vecRe = new Float64Array(n * n);
+            const vecIm = new Float64Array(n * n);
+            solver.eigensystem(h.re, h.im, values, vecRe, vecIm);
 
-          // Reference library: ml-matrix's real symmetric decomposition of [[A, −B], [B, A]], each value twice.
-          const reference = shiftedEmbeddingEigenvalues(h);
-          // Weyl's inequality |λ_k(H) − λ_k(H₀)| ≤ ‖H − H₀‖₂ ≤ ‖H − H₀‖_F (Golub & Van Loan, 4th ed., §8.1; from
-          // memory): dropping the tiny entries may move the spectrum by no more than their size.
-          const { cleaned, removed } = withoutTiny(h);
-          const cleanedReference = shiftedEmbeddingEigenvalues(cleaned);
-          const tolerance = 1e-12 * size;
-          for (let m = 0; m < n; m++) {
-            expect(Math.abs(only[m] - reference[2 * m])).toBeLessThanOrEqual(tolerance);
-            expect(Math.abs(only[m] - reference[2 * m + 1])).toBeLessThanOrEqual(tolerance);
-            expect(Math.abs(values[m] - reference[2 * m])).toBeLessThanOrEqual(tolerance);
-            expect(Math.abs(only[m] - cleanedReference[2 * m])).toBeLessThanOrEqual(tolerance + removed);
-            if (m > 0) {
-              expect(only[m]).toBeGreaterThanOrEqual(only[m - 1]);
-              expect(values[m]).toBeGreaterThanOrEqual(values[m - 1]);
+            // Reference library: ml-matrix's real symmetric decomposition of [[A, −B], [B, A]], each value twice.
+            const reference = shiftedEmbeddingEigenvalues(h);
+            // Weyl's inequality |λ_k(H) − λ_k(H₀)| ≤ ‖H − H₀‖₂ ≤ ‖H − H₀‖_F (Golub & Van Loan, 4th ed., §8.1; from
+            // memory): dropping the tiny entries may move the spectrum by no more than their size.
+            const { cleaned, removed } = withoutTiny(h);
+            const cleanedReference = shiftedEmbeddingEigenvalues(cleaned);
+            const tolerance = 1e-12 * size;
+            for (let m = 0; m < n; m++) {
+              expect(Math.abs(only[m] - reference[2 * m])).toBeLessThanOrEqual(tolerance);
+              expect(Math.abs(only[m] - reference[2 * m + 1])).toBeLessThanOrEqual(tolerance);
+              expect(Math.abs(values[m] - reference[2 * m])).toBeLessThanOrEqual(tolerance);
+              expect(Math.abs(only[m] - cleanedReference[2 * m])).toBeLessThanOrEqual(tolerance + removed);
+              if (m > 0) {
+                expect(only[m]).toBeGreaterThanOrEqual(only[m - 1]);
+                expect(values[m]).toBeGreaterThanOrEqual(values[m - 1]);
+              }
             }
-          }
-          // Invariants: ‖HV − VΛ‖ ≤ 1e-10·‖H‖, V†V = I, Σλ = tr H (common practice).
-          expect(residual(h, values, vecRe, vecIm)).toBeLessThanOrEqual(1e-10 * size);
-          expect(orthonormalityError(n, vecRe, vecIm)).toBeLessThanOrEqual(1e-12);
-          let sum = 0;
-          for (let m = 0; m < n; m++) sum += values[m];
-          expect(Math.abs(sum - trace(h))).toBeLessThanOrEqual(1e-10 * size);
-        },
-      ),
-      { numRuns: RUNS },
-    );
-  });
+            // Invariants: ‖HV − VΛ‖ ≤ 1e-10·‖H‖, V†V = I, Σλ = tr H (common practice).
+            expect(residual(h, values, vecRe, vecIm)).toBeLessThanOrEqual(1e-10 * size);
+            expect(orthonormalityError(n, vecRe, vecIm)).toBeLessThanOrEqual(1e-12);
+            let sum = 0;
+            for (let m = 0; m < n; m++) sum += values[m];
+            expect(Math.abs(sum - trace(h))).toBeLessThanOrEqual(1e-10 * size);
+          },
+        ),
+        { numRuns: RUNS },
+      );
+    });
+  }
 
   it('a complex 3×3 whose Wilkinson shift equals its tiny first diagonal entry gives 1/2 and (9 ± 3√17)/4', () => {
     // H = [[δ, 1.5·e^{iφ}, 0], [1.5·e^{−iφ}, 4, 2], [0, 2, 1]] is D·H_real·D† with D = diag(e^{iφ}, 1, 1), so it has
@@ -153,18 +155,20 @@ describe('HermitianEigensolver on ordinary entries mixed with tiny ones (1e-300�
           re: new Float64Array([delta, c, 0, c, 4, 2, 0, 2, 1]),
           im: new Float64Array([0, s, 0, -s, 0, 0, 0, 0, 0]),
         };
-        const solver = new HermitianEigensolver(3);
-        const only = solver.eigenvalues(h.re, h.im, new Float64Array(3));
-        const values = new Float64Array(3);
-        const vecRe = new Float64Array(9);
-        const vecIm = new Float64Array(9);
-        solver.eigensystem(h.re, h.im, values, vecRe, vecIm);
-        for (let m = 0; m < 3; m++) {
-          expect(Math.abs(only[m] - expected[m])).toBeLessThanOrEqual(1e-14);
-          expect(Math.abs(values[m] - expected[m])).toBeLessThanOrEqual(1e-14);
+        for (const simd of [true, false]) {
+          const solver = new HermitianEigensolver(3, { simd });
+          const only = solver.eigenvalues(h.re, h.im, new Float64Array(3));
+          const values = new Float64Array(3);
+          const vecRe = new Float64Array(9);
+          const vecIm = new Float64Array(9);
+          solver.eigensystem(h.re, h.im, values, vecRe, vecIm);
+          for (let m = 0; m < 3; m++) {
+            expect(Math.abs(only[m] - expected[m])).toBeLessThanOrEqual(1e-14);
+            expect(Math.abs(values[m] - expected[m])).toBeLessThanOrEqual(1e-14);
+          }
+          expect(residual(h, values, vecRe, vecIm)).toBeLessThanOrEqual(1e-14);
+          expect(orthonormalityError(3, vecRe, vecIm)).toBeLessThanOrEqual(1e-15);
         }
-        expect(residual(h, values, vecRe, vecIm)).toBeLessThanOrEqual(1e-14);
-        expect(orthonormalityError(3, vecRe, vecIm)).toBeLessThanOrEqual(1e-15);
       }
     }
   });
