@@ -22,6 +22,9 @@
  * The atoms must sit exactly on the sites of the triangular lattice whose sites per cell are `sites`
  * (src/tb/unfoldSheet.ts makes such a sheet); otherwise the weights are not periodic in its reciprocal lattice.
  *
+ * Degenerate states: their individual weights depend on the arbitrary basis the eigensolver picks within the
+ * multiplet; each member is given the multiplet's mean weight (the multiplet's total is what is defined).
+ *
  * Layout (UnfoldResult): k-major, energies[k·bands + n] ascending at every k, weights and sigmaWeights alike.
  */
 import { HermitianEigensolver } from '../linalg/eigh.ts';
@@ -111,6 +114,33 @@ class BlockUnfolder {
       this.weights[m] = total * scale;
       this.sigma[m] = sigma * scale;
     }
+    shareWithinMultiplets(this.values, this.weights, this.sigma, n);
+  }
+}
+
+/** Eigenvalues closer than this (eV) are one degenerate level split by rounding. */
+const DEGENERATE = 1e-9;
+
+/**
+ * Within a degenerate multiplet the eigensolver's basis is arbitrary, and so is each member's weight; only the
+ * multiplet's total is defined. Every member gets the multiplet's mean, so the weights never depend on the basis
+ * (nor on the eigensolver's route).
+ */
+function shareWithinMultiplets(values: Float64Array, weights: Float64Array, sigma: Float64Array, n: number): void {
+  for (let first = 0; first < n;) {
+    let end = first + 1;
+    while (end < n && values[end] - values[end - 1] <= DEGENERATE) end++;
+    if (end - first > 1) {
+      let total = 0;
+      let sigmaTotal = 0;
+      for (let m = first; m < end; m++) {
+        total += weights[m];
+        sigmaTotal += sigma[m];
+      }
+      weights.fill(total / (end - first), first, end);
+      sigma.fill(sigmaTotal / (end - first), first, end);
+    }
+    first = end;
   }
 }
 
@@ -134,11 +164,12 @@ export function unfoldBands(model: TightBindingModel, sites: number, kpoints: Fl
     for (let k = 0; k < count; k++) {
       sigma.solve(kpoints[2 * k], kpoints[2 * k + 1], scale);
       pi.solve(kpoints[2 * k], kpoints[2 * k + 1], scale);
-      // Merge the two ascending lists (σ first on ties, as src/tb/bands.ts).
+      // Merge the two ascending lists, σ first on ties (as src/tb/bands.ts), a tie being within DEGENERATE: a σ and
+      // a π state at one energy keep one order whatever the rounding.
       let i = 0;
       let j = 0;
       for (let b = 0, row = k * bands; b < bands; b++, row++) {
-        if (j >= pi.size || (i < sigma.size && sigma.values[i] <= pi.values[j])) {
+        if (j >= pi.size || (i < sigma.size && sigma.values[i] <= pi.values[j] + DEGENERATE)) {
           energies[row] = sigma.values[i];
           weights[row] = sigma.weights[i];
           sigmaWeights[row] = sigma.weights[i];

@@ -168,6 +168,22 @@ describe('unfoldBands(model, sites, kpoints)', () => {
     }), { numRuns: 60 });
   });
 
+  it('gives the members of a degenerate multiplet one weight, their mean: the multiplet\'s total is basis-free, its split is not (analytic: any unitary mix of degenerate eigenvectors is an eigenbasis)', () => {
+    // α (6mm) at Γ and at the triangular K, where the hexagonal symmetry makes two-fold degenerate levels.
+    const alpha = patternUnfolding(findSheetPreset('alpha')!.pattern);
+    const result = unfold(alpha, Float64Array.of(0, 0, (4 * Math.PI) / (3 * D), 0));
+    let multiplets = 0;
+    for (let k = 0; k < result.count; k++) {
+      for (let n = k * result.bands + 1; n < (k + 1) * result.bands; n++) {
+        if (result.energies[n] - result.energies[n - 1] > 1e-9) continue;
+        multiplets++;
+        expect(result.weights[n]).toBe(result.weights[n - 1]);
+        expect(result.sigmaWeights[n]).toBe(result.sigmaWeights[n - 1]);
+      }
+    }
+    expect(multiplets).toBeGreaterThan(4);
+  });
+
   it('has W(−k) = W(k) (time reversal: H(−k) is the complex conjugate of H(k))', () => {
     const unfolding = patternUnfolding(findSheetPreset('beta12')!.pattern);
     const k = randomK(10, 29);
