@@ -15,6 +15,7 @@ import { MetalPanel } from './panels/metalPanel.ts';
 import { StmPanel } from './panels/stmPanel.ts';
 import { EnergiesPanel } from './panels/energiesPanel.ts';
 import { UnfoldPanel } from './panels/unfoldPanel.ts';
+import { whenNear } from './panels/whenNear.ts';
 import { CalibratePanel } from './panels/calibratePanel.ts';
 import { defaultState, readHash, type ViewState } from './state.ts';
 import { ValidationError } from '../validate/invalid.ts';
@@ -71,8 +72,10 @@ await nextTask();
 const stm = new StmPanel(app, document, () => new Worker(new URL('./worker/stmWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-stm' }));
 wireExports(app, document, metal, stm);
 await nextTask();
-const energies = new EnergiesPanel(app, document, () => new Worker(new URL('./worker/expansionWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-expansion' }));
 const unfold = new UnfoldPanel(app, document, () => new Worker(new URL('./worker/unfoldWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-unfold' }));
+await nextTask();
+const energies = new EnergiesPanel(app, document, () => new Worker(new URL('./worker/expansionWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-expansion' }));
+await nextTask();
 const calibrate = new CalibratePanel(app, document, () => new Worker(new URL('./worker/calibrateWorker.ts', import.meta.url), { type: 'module', name: 'lacuna-calibrate' }));
 
 if (opensDemo) {
@@ -132,5 +135,7 @@ window.addEventListener('hashchange', () => {
 
 void app.start().then(() => {
   if (opensDemo) void candidates.search();
-  void calibrate.start();
+  // The DEMO fits far down the page start when their panels come near the viewport (whenNear.ts).
+  whenNear($('section.energies-panel'), () => energies.start());
+  whenNear($('section.calibrate-panel'), () => void calibrate.start());
 });

@@ -29,6 +29,8 @@ export class EnergiesPanel {
   view: ExpansionView | undefined;
   private file = DEMO_FILE;
   private chosen: Chosen | null = null;
+  /** A fit has been asked for (the first, or the user's): start() then has nothing to do. */
+  private begun = false;
   private readonly lane: WorkerLane;
 
   constructor(private readonly app: App, private readonly doc: Document, createWorker: () => Worker) {
@@ -43,7 +45,11 @@ export class EnergiesPanel {
     $<HTMLElement>(doc, '#energy-hull-host').addEventListener('click', (event) => this.pick(event));
     $<HTMLButtonElement>(doc, '#energies-svg').addEventListener('click', () => void this.save('svg'));
     $<HTMLButtonElement>(doc, '#energies-png').addEventListener('click', () => void this.save('png'));
-    void this.fit();
+  }
+
+  /** The first fit (the DEMO file): main.ts starts it when the panel comes near the viewport. */
+  start(): void {
+    if (!this.begun) void this.fit();
   }
 
   private field(name: string): HTMLInputElement {
@@ -80,6 +86,7 @@ export class EnergiesPanel {
 
   /** Fits `file` (default: the file of the fit shown) with the form's settings; on success it becomes the file shown. */
   async fit(file = this.file): Promise<void> {
+    this.begun = true;
     const settings = this.readForm();
     if (!settings) return;
     const progress = $<HTMLElement>(this.doc, '#energies-progress');
