@@ -103,6 +103,9 @@ export class UnfoldPanel {
     if (!cut.classList.contains('invalid') && this.doc.activeElement !== cut) cut.value = String(this.app.state.unfold.cut);
     $<HTMLSelectElement>(this.doc, '#unfold-part').value = this.app.state.unfold.part;
     if (this.sheetKey() !== this.solvedFor) {
+      // The bands first: while the model worker solves the new sheet, wait (its onSpectra schedules us again), so
+      // that the two solves never share the cores and an edit reaches the bands figure as fast as before.
+      if (this.app.model.busy) return;
       void this.solve(false);
       return;
     }
