@@ -9,7 +9,7 @@
  * T₁′, T₂′ the halves with |β| taken from their touching diagonal entries. Each half is solved (recursively; QR
  * below LEAF_SIZE), which turns the problem into D + ρ·z·zᵀ with z = (last row of Q₁, sign(β)·first row of Q₂).
  * Merge. Deflation (Dongarra & Sorensen, SIAM J. Sci. Stat. Comput. 8, s139 (1987)): a component with ρ|z_j| below
- * tol = 8ε·max(|d|, ρ) keeps (d_j, its column); two poles closer than tol after a rotation that zeroes one z
+ * tol = max(8ε·max(|d|, ρ), 2^−500) keeps (d_j, its column); two poles closer than tol after a rotation that zeroes one z
  * component keep the rotated pair. The rest solve the secular equation (eighSecular.ts); z is then recomputed
  * from the computed roots (Löwner's formula, Gu & Eisenstat §3), ẑ_j² = Π_i (λ_i − d_j) / Π_{i≠j} (d_i − d_j),
  * which makes the eigenvectors u_i ∝ (ẑ_j/(d_j − λ_i))_j orthogonal to working precision, and the merged
@@ -19,7 +19,7 @@
  */
 import { simdModule } from './simdModule.ts';
 import { secularRoot } from './eighSecular.ts';
-import { diagonaliseTridiagonal } from './eighTridiagonal.ts';
+import { ABSOLUTE_FLOOR, diagonaliseTridiagonal } from './eighTridiagonal.ts';
 
 const EPS = 2 ** -52;
 /** Blocks up to this order are solved by implicit QR with rotations (faster there than a merge). */
@@ -191,7 +191,9 @@ export class TridiagonalDivideConquer {
       else sorted[s] = b++;
       largest = Math.max(largest, Math.abs(diag[lo + sorted[s]]));
     }
-    const tol = 8 * EPS * largest;
+    // The floor is the QR route's negligible coupling (eighTridiagonal.ts; callers scale T to entries near 1): with
+    // every pole 0 and a subnormal ρ, 8ε·largest underflows to 0 and the secular equation loses its eigenvectors.
+    const tol = Math.max(8 * EPS * largest, ABSOLUTE_FLOOR);
     const kept = this.kept;
     const deflated = this.deflated;
     let k = 0;

@@ -17,7 +17,7 @@ const SWEEPS_PER_VALUE = 30;
  * Off-diagonals below this are negligible outright: callers scale T so that its largest entry lies in
  * [2^−100, 2^100], so this is far below ε·‖T‖, and squares of larger values stay normal numbers.
  */
-const ABSOLUTE_FLOOR = 2 ** -500;
+export const ABSOLUTE_FLOOR = 2 ** -500;
 /** Below this a rotation's x² + z² may have lost precision to underflow; rescale before the square root. */
 const ROTATION_UNSAFE = 2 ** -450;
 const FLOOR_SQUARED = ABSOLUTE_FLOOR * ABSOLUTE_FLOOR;
