@@ -105,7 +105,15 @@ export class UnfoldPanel {
     if (this.sheetKey() !== this.solvedFor) {
       // The bands first: while the model worker solves the new sheet, wait (its onSpectra schedules us again), so
       // that the two solves never share the cores and an edit reaches the bands figure as fast as before.
-      if (this.app.model.busy) return;
+      if (this.app.model.busy) {
+        // A solve of the previous sheet would hold a core the bands need: stop it (the lane ends its worker).
+        if (this.solving) {
+          this.solveGeneration++;
+          this.lane.cancel();
+          this.solving = false;
+        }
+        return;
+      }
       void this.solve(false);
       return;
     }
