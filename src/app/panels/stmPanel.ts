@@ -114,6 +114,8 @@ export class StmPanel {
     const deps = [a.resolved, a.state.params, a.state.doping, a.state.smearing, stm.bias, stm.height, stm.mode];
     if (!force && deps.every((d, i) => d === this.deps[i])) return;
     this.deps = deps;
+    // A picture of the previous state would hold a core the new bands need: stop it now, not when the next starts.
+    if (this.pictureLane.busy) this.pictureLane.cancel();
     clearTimeout(this.timer);
     this.timer = setTimeout(() => void this.simulate(), SETTLE_MS);
   }
